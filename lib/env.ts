@@ -1,0 +1,55 @@
+import { z } from 'zod';
+
+// Every setting has a loopback default so `npm start` needs no .env file; point the
+// variables at a real PostgreSQL, S3, SMTP server or carrier to use those instead.
+const bool = z
+  .union([z.boolean(), z.string()])
+  .transform((v) => (typeof v === 'boolean' ? v : ['1', 'true', 'yes', 'on'].includes(v.toLowerCase())));
+
+export const envSchema = z.object({
+  DATABASE_URL: z.url().default('postgres://loadproof@127.0.0.1:54329/loadproof'),
+  APP_URL: z.url().default('http://127.0.0.1:3000'),
+  AUTH_SECRET: z.string().min(16).default('loadproof-local-secret-change-me-in-production'),
+  LOADPROOF_LOCAL: bool.default(true),
+
+  S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).default('loadproof-evidence'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
+  S3_FORCE_PATH_STYLE: bool.default(true),
+
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_SECURE: bool.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Loadproof <no-reply@loadproof.local>'),
+  /** HTTP view of the local mail catcher; empty turns the caught-mail page off. */
+  LOCAL_MAILBOX_URL: z.string().default('http://127.0.0.1:2580'),
+
+  CARRIER_URL: z.url().default('http://127.0.0.1:4600'),
+  CARRIER_API_KEY: z.string().default('local-carrier-key'),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ''));
+  const result = envSchema.safeParse(cleaned);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  return result.data;
+}
+
+let cached: Env | undefined;
+export function env(): Env {
+  cached ??= parseEnv(process.env);
+  return cached;
+}
+
+export function databaseUrl(): string {
+  return env().DATABASE_URL;
+}

@@ -324,28 +324,10 @@ function build(distDir) {
 }
 
 // ---------------------------------------------------------------- main
-const signIns = [
-  ['dealer', 'sam.okafor@brightspoke.test', 'Bright Spoke Cycles (Portland, US; imperial)'],
-  ['dealer_admin', 'rita.vance@brightspoke.test', 'Bright Spoke Cycles'],
-  ['dealer', 'lena.hartmann@kettenblatt.test', 'Kettenblatt Radwerk (Freiburg, DE; metric)'],
-  ['dealer_admin', 'jonas.weber@kettenblatt.test', 'Kettenblatt Radwerk'],
-  ['dealer_admin', 'maya.lindqvist@harbourwheel.test', 'Harbour Wheel Co. (Halifax, CA; metric)'],
-  ['brand_rep', 'priya.nair@torvane.test', 'Torvane Drive Systems'],
-  ['brand_rep', 'owen.brandt@torvane.test', 'Torvane Drive Systems'],
-  ['warehouse', 'felix.moreau@torvane.test', 'Torvane Drive Systems'],
-  ['accountant', 'hana.sato@torvane.test', 'Torvane Drive Systems'],
-  ['brand_admin', 'diego.alves@torvane.test', 'Torvane Drive Systems'],
-  ['brand_rep', 'ines.costa@alderbikes.test', 'Alder Bicycle Works'],
-  ['warehouse', 'tom.reyes@alderbikes.test', 'Alder Bicycle Works'],
-  ['accountant', 'ada.kowalski@alderbikes.test', 'Alder Bicycle Works'],
-  ['brand_admin', 'noah.quinn@alderbikes.test', 'Alder Bicycle Works'],
-];
-
 function printSignIns() {
   console.log('');
   log(`Loadproof is running at ${appUrl}`);
-  console.log('\n  Demo sign-ins (password for all: loadproof-demo)\n');
-  for (const [role, email, org] of signIns) console.log(`    ${role.padEnd(13)} ${email.padEnd(36)} ${org}`);
+  spawnSync(bin('tsx'), ['scripts/sign-ins.ts'], { cwd: root, stdio: 'inherit' });
   console.log(`\n  Caught e-mail: sign in as an admin and open "Mailbox", or ${childEnv().LOCAL_MAILBOX_URL}/messages`);
   console.log('  Press Ctrl-C to stop everything.\n');
 }
@@ -357,7 +339,7 @@ async function main() {
   await startPostgres(pgBin);
 
   log('migrating and loading the demo scenario…');
-  run(bin('tsx'), ['scripts/migrate.ts', testing ? '--test' : '--demo'], { env: childEnv() });
+  run(bin('tsx'), ['scripts/migrate.ts'], { env: childEnv() });
 
   await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
 
@@ -370,7 +352,7 @@ async function main() {
       if (vitest(project).status !== 0) failed.push(project);
     }
     build('.next-test');
-    await startChild('worker', bin('tsx'), ['scripts/worker.ts'], { ready: 'worker ready' });
+    await startChild('worker', bin('tsx'), ['--conditions=react-server', 'scripts/worker.ts'], { ready: 'worker ready' });
     await startChild('app', bin('next'), ['start', '-H', '127.0.0.1', '-p', String(ports.app)], { ready: 'Ready' });
     await waitFor(() => portOpen(ports.app), 'the app');
     log('running browser tests…');
@@ -381,7 +363,7 @@ async function main() {
     return;
   }
 
-  await startChild('worker', bin('tsx'), ['scripts/worker.ts'], { ready: 'worker ready' });
+  await startChild('worker', bin('tsx'), ['--conditions=react-server', 'scripts/worker.ts'], { ready: 'worker ready' });
   if (mode === 'dev') {
     await startChild('app', bin('next'), ['dev', '-H', '127.0.0.1', '-p', String(ports.app)], { ready: 'Ready' });
   } else {

@@ -2,9 +2,9 @@ import path from 'node:path';
 import { defineConfig } from 'vitest/config';
 
 const alias = {
-  '@': path.resolve(__dirname),
+  '@': path.resolve(import.meta.dirname),
   // `server-only` throws outside a React server bundle; tests call server modules directly.
-  'server-only': path.resolve(__dirname, 'tests/support/empty-module.ts'),
+  'server-only': path.resolve(import.meta.dirname, 'tests/support/empty-module.ts'),
 };
 
 export default defineConfig({

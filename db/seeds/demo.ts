@@ -1,0 +1,12 @@
+import type { Knex } from 'knex';
+import { seed as organisationsUsers } from './01_organisations_users';
+
+// Sections run in order; each is idempotent on its natural keys, so a second start
+// keeps what is there and adds only what a newer version of the scenario brings.
+const sections: ((knex: Knex) => Promise<number>)[] = [organisationsUsers];
+
+export async function loadDemo(knex: Knex): Promise<number> {
+  let added = 0;
+  for (const section of sections) added += await knex.transaction((trx) => section(trx));
+  return added;
+}

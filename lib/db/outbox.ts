@@ -1,0 +1,42 @@
+import 'server-only';
+import { db } from '@/db/connection';
+
+export type OutboxMail = { id: number; messageId: string; to: string; subject: string; text: string; html: string | null; attempts: number };
+
+const LEASE_SECONDS = 120;
+
+/**
+ * Leases up to `limit` due mails. SKIP LOCKED plus the lease lets several workers run
+ * without two of them sending the same row.
+ */
+export async function leaseDueMail(limit: number): Promise<OutboxMail[]> {
+  const { rows } = await db().raw(
+    `UPDATE outbox SET locked_until = now() + make_interval(secs => ?), attempts = attempts + 1
+     WHERE id IN (
+       SELECT id FROM outbox
+       WHERE status = 'pending' AND next_attempt_at <= now() AND (locked_until IS NULL OR locked_until < now())
+       ORDER BY next_attempt_at, id
+       LIMIT ?
+       FOR UPDATE SKIP LOCKED)
+     RETURNING id, message_id AS "messageId", to_email AS "to", subject, text_body AS "text", html_body AS "html", attempts`,
+    [LEASE_SECONDS, limit],
+  );
+  return rows;
+}
+
+export async function markSent(ids: number[]): Promise<void> {
+  if (!ids.length) return;
+  await db()('outbox').whereIn('id', ids).update({ status: 'sent', sent_at: db().fn.now(), locked_until: null, last_error: null });
+}
+
+export async function markFailed(id: number, error: string, retryInSeconds: number): Promise<void> {
+  await db()('outbox')
+    .where({ id })
+    .update({ locked_until: null, last_error: error.slice(0, 500), next_attempt_at: db().raw(`now() + make_interval(secs => ?)`, [retryInSeconds]) });
+}
+
+export async function outboxCounts(): Promise<{ pending: number; sent: number }> {
+  const rows = await db()('outbox').select('status').count<{ status: string; count: string }[]>('id as count').groupBy('status');
+  const get = (s: string) => Number(rows.find((r) => r.status === s)?.count ?? 0);
+  return { pending: get('pending'), sent: get('sent') };
+}

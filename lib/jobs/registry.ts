@@ -1,0 +1,7 @@
+import 'server-only';
+import { drainOutbox } from '@/lib/jobs/outbox';
+
+export type Job = { name: string; everyMs: number; run: () => Promise<unknown> };
+
+// Background work the worker process runs on a clock. Add a job here to have it run.
+export const jobs: Job[] = [{ name: 'outbox', everyMs: 2_000, run: drainOutbox }];

@@ -1,0 +1,28 @@
+import 'server-only';
+import nodemailer, { type Transporter } from 'nodemailer';
+import { env } from '@/lib/env';
+
+let transport: Transporter | undefined;
+
+export function mailTransport(): Transporter {
+  const e = env();
+  transport ??= nodemailer.createTransport({
+    host: e.SMTP_HOST,
+    port: e.SMTP_PORT,
+    secure: e.SMTP_SECURE,
+    auth: e.SMTP_USER ? { user: e.SMTP_USER, pass: e.SMTP_PASS } : undefined,
+    pool: true,
+    maxConnections: 8,
+    maxMessages: Infinity,
+    // The local catcher has no TLS; a real server gets STARTTLS when it offers it.
+    ignoreTLS: e.LOADPROOF_LOCAL,
+    connectionTimeout: 5_000,
+    greetingTimeout: 5_000,
+  });
+  return transport;
+}
+
+export function resetMailTransport(): void {
+  transport?.close();
+  transport = undefined;
+}

@@ -1,0 +1,17 @@
+import { afterAll, vi } from 'vitest';
+import { closeDb } from '@/db/connection';
+import { actingUserId } from './acting-user';
+
+// Route handlers and server actions read the signed-in user through this one module;
+// integration tests act as a chosen user by replacing it.
+vi.mock('@/lib/auth/session-id', () => ({ sessionUserId: async () => actingUserId() }));
+
+// next/cache needs a Next.js request; in these tests revalidation is a no-op.
+vi.mock('next/cache', () => ({ revalidatePath: () => {}, revalidateTag: () => {}, unstable_noStore: () => {} }));
+
+// React's cache() memoises per request inside Next.js; outside it, call straight through.
+vi.mock('react', async (orig) => ({ ...(await orig<typeof import('react')>()), cache: <T,>(fn: T) => fn }));
+
+afterAll(async () => {
+  await closeDb();
+});

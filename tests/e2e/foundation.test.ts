@@ -61,11 +61,12 @@ describe('signing in and the shell', () => {
     const { context, page } = await newPage(browser);
     await signIn(page, 'tom.reyes@wrenfield.test');
     const metric = page.getByRole('button', { name: 'km/h · N·m' });
-    await metric.click();
+    const saved = () => page.waitForResponse((r) => r.request().method() === 'POST' && r.status() === 200);
+    await Promise.all([saved(), metric.click()]);
     await expect.poll(() => metric.getAttribute('aria-pressed')).toBe('true');
     await page.reload();
     expect(await page.getByRole('button', { name: 'km/h · N·m' }).getAttribute('aria-pressed')).toBe('true');
-    await page.getByRole('button', { name: 'mph · lbf·ft' }).click();
+    await Promise.all([saved(), page.getByRole('button', { name: 'mph · lbf·ft' }).click()]);
     await expect.poll(() => page.getByRole('button', { name: 'mph · lbf·ft' }).getAttribute('aria-pressed')).toBe('true');
     await page.reload();
     expect(await page.getByRole('button', { name: 'mph · lbf·ft' }).getAttribute('aria-pressed')).toBe('true');

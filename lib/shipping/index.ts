@@ -1,0 +1,20 @@
+export { ShippingInputError } from './input-error';
+export {
+  AIR_MAX_STATE_OF_CHARGE_PCT,
+  BATTERY_CONDITIONS,
+  BATTERY_PACKINGS,
+  SMALL_BATTERY_MAX_WH,
+  SMALL_CELL_MAX_WH,
+  allowedServices,
+  classifyLithiumShipment,
+  watthourRating,
+  type BatteryCondition,
+  type BatteryPacking,
+  type LithiumClassification,
+  type LithiumShipmentInput,
+  type LithiumUnNumber,
+  type MarkDetail,
+  type RuleApplied,
+  type TransportMode,
+  type TransportService,
+} from './lithium';

@@ -1,3 +1,4 @@
+import { missingEvidence, type EvidenceSummary } from '@/lib/claims/evidence';
 import type { ClaimContext } from './claim-context';
 import {
   DEALER_ROLES,
@@ -25,6 +26,8 @@ interface EventRule {
   does: string;
   /** Refusals that depend on who sends the step and when, not on its data. */
   standing?: (context: ClaimContext, standing: Standing) => string | null;
+  /** Refusals on the step's data beyond its shape (run after the schema has passed). */
+  data?: (context: ClaimContext, event: ClaimEvent) => string | null;
 }
 
 const REP = ['brand_rep'] as const satisfies readonly Role[];
@@ -41,8 +44,17 @@ function time(iso: string): number {
   return Date.parse(iso);
 }
 
+function evidenceComplete(_context: ClaimContext, event: ClaimEvent): string | null {
+  const evidence = (event as { evidence?: EvidenceSummary }).evidence;
+  if (evidence === undefined) return null;
+  const missing = missingEvidence(evidence);
+  if (missing.length === 0) return null;
+  const items = missing.map((m) => m.charAt(0).toLowerCase() + m.slice(1));
+  return `This claim cannot go to the brand yet. Missing: ${items.join('; ')}.`;
+}
+
 export const EVENT_RULES: Record<ClaimEventType, EventRule> = {
-  SUBMIT: { roles: DEALER_ROLES, who: 'the dealer', does: 'submit a claim' },
+  SUBMIT: { roles: DEALER_ROLES, who: 'the dealer', does: 'submit a claim', data: evidenceComplete },
   WITHDRAW: { roles: DEALER_ROLES, who: 'the dealer', does: 'withdraw a claim' },
   TAKE: {
     roles: REP,
@@ -65,9 +77,18 @@ export const EVENT_RULES: Record<ClaimEventType, EventRule> = {
     does: 'ask the dealer for more',
     standing: assignedRepOnly('ask the dealer for more'),
   },
-  RESUBMIT: { roles: DEALER_ROLES, who: 'the dealer', does: 'resubmit a claim' },
+  RESUBMIT: { roles: DEALER_ROLES, who: 'the dealer', does: 'resubmit a claim', data: evidenceComplete },
   APPROVE: { roles: REP, who: 'a brand rep', does: 'approve a claim', standing: assignedRepOnly('approve it') },
-  DENY: { roles: REP, who: 'a brand rep', does: 'deny a claim', standing: assignedRepOnly('deny it') },
+  DENY: {
+    roles: REP,
+    who: 'a brand rep',
+    does: 'deny a claim',
+    standing: assignedRepOnly('deny it'),
+    data: (_context, event) =>
+      event.type === 'DENY' && time(event.appealOpenUntil) <= time(event.at)
+        ? 'The end of the appeal window ("appealOpenUntil") must be after the denial.'
+        : null,
+  },
   APPEAL: {
     roles: DEALER_ROLES,
     who: 'the dealer',
@@ -138,6 +159,8 @@ export function ruleRefusal(context: ClaimContext, event: ClaimEvent): string | 
       at: event.at,
       noOtherRep: event.type === 'TAKE' ? event.noOtherRep : undefined,
     }) ??
-    payloadProblem(event)
+    payloadProblem(event) ??
+    EVENT_RULES[event.type].data?.(context, event) ??
+    null
   );
 }

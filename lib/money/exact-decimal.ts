@@ -28,6 +28,12 @@ export function decimalToString(d: ExactDecimal): string {
   return negative ? `-${body}` : body;
 }
 
+/** Like decimalToString without trailing fractional zeros: 2.50 → "2.5", 14.00 → "14". */
+export function decimalToShortString(d: ExactDecimal): string {
+  const text = decimalToString(d);
+  return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
+}
+
 export function compareDecimal(a: ExactDecimal, b: ExactDecimal): -1 | 0 | 1 {
   const scale = Math.max(a.scale, b.scale);
   const x = a.units * 10n ** BigInt(scale - a.scale);

@@ -7,7 +7,7 @@ export {
   type CurrencyCode,
 } from './currency';
 export { ROUNDING_RULE, roundQuotient } from './rounding';
-export { compareDecimal, decimalToString, parseExactDecimal, type ExactDecimal, type Parsed } from './exact-decimal';
+export { compareDecimal, decimalToShortString, decimalToString, parseExactDecimal, type ExactDecimal, type Parsed } from './exact-decimal';
 export {
   MoneyRangeError,
   addMinor,

@@ -1,4 +1,4 @@
-import { parseExactDecimal, type ExactDecimal } from './exact-decimal';
+import { decimalToShortString, parseExactDecimal, type ExactDecimal } from './exact-decimal';
 import { roundQuotient } from './rounding';
 
 /**
@@ -74,10 +74,5 @@ export function multiplyMinorByDecimal(amount: MinorUnits, factor: string | Exac
 
 /** The exact product as a decimal string of minor units, for showing what was rounded ("312.5"). */
 export function exactProductText(amount: MinorUnits, factor: ExactDecimal): string {
-  const units = BigInt(amount) * factor.units;
-  const negative = units < 0n;
-  const digits = (negative ? -units : units).toString().padStart(factor.scale + 1, '0');
-  let body = factor.scale === 0 ? digits : `${digits.slice(0, -factor.scale)}.${digits.slice(-factor.scale)}`;
-  if (body.includes('.')) body = body.replace(/0+$/, '').replace(/\.$/, '');
-  return negative ? `-${body}` : body;
+  return decimalToShortString({ units: BigInt(amount) * factor.units, scale: factor.scale });
 }

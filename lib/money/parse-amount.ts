@@ -53,14 +53,15 @@ export function parseAmount(text: string, options: ParseAmountOptions): Parsed<M
   if (s === '') return fail('the amount is empty');
 
   let signs = 0;
-  if (s.startsWith('(') && s.endsWith(')')) {
-    signs++;
-    s = s.slice(1, -1).trim();
-  }
-
-  // Peel signs and currency marks off both ends, in any order ("-$12.30", "$-12.30", "12,30 € -").
+  // Peel signs, parentheses and currency marks off both ends, in any order
+  // ("-$12.30", "$-12.30", "($12.30)", "USD (12.30)", "12,30 € -").
   for (let changed = true; changed; ) {
     changed = false;
+    if (s.startsWith('(') && s.endsWith(')')) {
+      signs++;
+      s = s.slice(1, -1).trim();
+      changed = true;
+    }
     const lead = s[0];
     if (lead !== undefined && MINUS.includes(lead)) {
       signs++;

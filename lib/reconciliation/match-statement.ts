@@ -105,7 +105,7 @@ export function matchStatement(
         lineNo: line.lineNo,
         basis: 'reference',
         reason: 'several_memos',
-        candidates: pick.slice(0, listLimit).map((h) => candidate(h.memo as Memo, line, h.field)),
+        candidates: pick.slice(0, listLimit).map((h) => candidate(h.memo, line, h.field)),
         candidateCount: pick.length,
       });
     }
@@ -186,8 +186,8 @@ export function matchStatement(
   };
 }
 
-function distinctMemos(hits: ReferenceHit[]): ReferenceHit[] {
-  const seen = new Map<string, ReferenceHit>();
+function distinctMemos<M extends MemoForMatching>(hits: ReferenceHit<M>[]): ReferenceHit<M>[] {
+  const seen = new Map<string, ReferenceHit<M>>();
   for (const h of hits) if (!seen.has(h.memo.id)) seen.set(h.memo.id, h);
   return [...seen.values()];
 }

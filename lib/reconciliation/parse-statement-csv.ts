@@ -171,13 +171,20 @@ function readAmount(
   const missing = noReference ? 'the row has neither a reference nor an amount' : 'the amount is empty';
   const single = cell('amount');
   if (single !== undefined) {
-    if (single === '') return void err('amount', missing);
-    return parse('amount', single);
+    if (single !== '') return parse('amount', single);
+    err('amount', missing);
+    return undefined;
   }
   const credit = cell('credit') ?? '';
   const debit = cell('debit') ?? '';
-  if (credit === '' && debit === '') return void err(cell('credit') !== undefined ? 'credit' : 'debit', missing);
-  if (credit !== '' && debit !== '') return void err('credit', 'both the credit and the debit column are filled; fill one');
+  if (credit === '' && debit === '') {
+    err(cell('credit') !== undefined ? 'credit' : 'debit', missing);
+    return undefined;
+  }
+  if (credit !== '' && debit !== '') {
+    err('credit', 'both the credit and the debit column are filled; fill one');
+    return undefined;
+  }
   const c = credit === '' ? 0 : parse('credit', credit);
   const d = debit === '' ? 0 : parse('debit', debit);
   if (c === undefined || d === undefined) return undefined;

@@ -9,8 +9,8 @@ export function normalizeReference(text: string): string {
   return text.toUpperCase().replace(/[^A-Z0-9]/g, '');
 }
 
-export interface ReferenceHit {
-  memo: MemoForMatching;
+export interface ReferenceHit<M extends MemoForMatching = MemoForMatching> {
+  memo: M;
   field: ReferenceField;
 }
 
@@ -21,11 +21,11 @@ export interface ReferenceHit {
  * "paid cm 2025 001337 0 / march" but not inside a longer run of digits. Cost per line is linear in
  * the reference length times the few key lengths sharing a 3-character prefix: no scan of all memos.
  */
-export class ReferenceIndex {
-  private readonly keys = new Map<string, ReferenceHit[]>();
+export class ReferenceIndex<M extends MemoForMatching = MemoForMatching> {
+  private readonly keys = new Map<string, ReferenceHit<M>[]>();
   private readonly lengthsByPrefix = new Map<string, number[]>();
 
-  constructor(memos: readonly MemoForMatching[]) {
+  constructor(memos: readonly M[]) {
     for (const memo of memos) {
       this.add(memo.number, memo, 'memo_number');
       this.add(memo.claimNumber, memo, 'claim_number');
@@ -33,7 +33,7 @@ export class ReferenceIndex {
     }
   }
 
-  private add(raw: string, memo: MemoForMatching, field: ReferenceField): void {
+  private add(raw: string, memo: M, field: ReferenceField): void {
     const key = normalizeReference(raw);
     if (key.length < MIN_REFERENCE_KEY_LENGTH) return;
     const hits = this.keys.get(key);
@@ -45,7 +45,7 @@ export class ReferenceIndex {
     else if (!lengths.includes(key.length)) lengths.push(key.length);
   }
 
-  find(reference: string): ReferenceHit[] {
+  find(reference: string): ReferenceHit<M>[] {
     const upper = reference.toUpperCase();
     const separatedBefore = new Uint8Array(upper.length + 1);
     let text = '';
@@ -64,7 +64,7 @@ export class ReferenceIndex {
     const isDigit = (i: number) => text.charCodeAt(i) <= 57;
     const boundary = (i: number) => i === 0 || i === n || separatedBefore[i] === 1 || isDigit(i - 1) !== isDigit(i);
 
-    const out: ReferenceHit[] = [];
+    const out: ReferenceHit<M>[] = [];
     for (let i = 0; i + MIN_REFERENCE_KEY_LENGTH <= n; i++) {
       if (!boundary(i)) continue;
       const lengths = this.lengthsByPrefix.get(text.slice(i, i + PREFIX));

@@ -1,4 +1,4 @@
-import { decimalToString, fromBigInt, isMinorUnits, parseExactDecimal, roundQuotient, type ExactDecimal, type MinorUnits } from '@/lib/money';
+import { decimalToShortString, decimalToString, fromBigInt, isMinorUnits, parseExactDecimal, roundQuotient, type ExactDecimal, type MinorUnits } from '@/lib/money';
 import { ReportInputError } from './report-input-error';
 
 export interface WarrantyOutcome {
@@ -43,7 +43,7 @@ export function expectedCost(outcomes: readonly WarrantyOutcome[]): ExpectedCost
   const weighted = parsed.map((o) => BigInt(o.costMinor) * at(o.p));
   const sum = weighted.reduce((a, w) => a + w, 0n);
   const denominator = 10n ** BigInt(scale);
-  const trim = (units: bigint) => decimalToString({ units, scale }).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+  const trim = (units: bigint) => decimalToShortString({ units, scale });
   return {
     expectedMinor: fromBigInt(roundQuotient(sum, denominator), 'expected cost'),
     exactMinor: trim(sum),

@@ -36,6 +36,7 @@ describe('parseAmount (hand-worked cases)', () => {
     expect(ok('($1,000.00)')).toBe(-100000);
     expect(ok('-$5')).toBe(-500);
     expect(ok('$-5')).toBe(-500);
+    expect(ok('USD (12.30)')).toBe(-1230);
   });
 
   it('accepts the currency code or symbol of the statement currency only', () => {

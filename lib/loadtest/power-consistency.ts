@@ -1,0 +1,91 @@
+import { formatLength, formatSpeed, type UnitSystem } from '@/lib/units';
+import { CONSISTENCY_MIN_POWER_FRACTION, MIN_SPEED_FOR_RATIO_MS, MOTOR_POWER_THRESHOLD_W, POWER_TORQUE_TOLERANCE } from './analysis-constants';
+import { medianInPlace } from './select';
+
+export interface PowerTorqueConsistency {
+  readonly tolerance: number;
+  readonly samplesCompared: number;
+  /** Largest |reported − computed| / computed, with where it happened; null when no sample qualified. */
+  readonly largest: {
+    readonly relative: number;
+    readonly speedMs: number;
+    readonly row: number;
+    readonly reportedW: number;
+    readonly computedW: number;
+  } | null;
+  /** Median of reported ÷ computed power. */
+  readonly medianRatio: number | null;
+  /** The circumference the power column agrees with: a wrong tyre entry shows up here. */
+  readonly impliedCircumferenceM: number | null;
+  readonly flagged: boolean;
+  readonly message: string;
+}
+
+/**
+ * Compare reported wheel power with torque × wheel angular speed (P = T·ω, ω = v/r = 2πv/C), on
+ * the smoothed signals. Only samples at or above the slowest compared speed and above both the
+ * motor threshold and a tenth of peak power count.
+ */
+export function checkPowerTorque(
+  speedMs: Float64Array,
+  reportedW: Float64Array,
+  torqueNm: Float64Array,
+  lines: Int32Array,
+  circumferenceM: number,
+  peakPowerW: number,
+  system: UnitSystem,
+): PowerTorqueConsistency {
+  const n = speedMs.length;
+  const minPower = Math.max(MOTOR_POWER_THRESHOLD_W, CONSISTENCY_MIN_POWER_FRACTION * peakPowerW);
+  const k = (2 * Math.PI) / circumferenceM;
+  const minSpeed = MIN_SPEED_FOR_RATIO_MS;
+  const ratios = new Float64Array(n);
+  let m = 0;
+  let worst = -1;
+  let worstDev = 0;
+  for (let i = 0; i < n; i++) {
+    const v = speedMs[i] as number;
+    const p = reportedW[i] as number;
+    if (v < minSpeed || p < minPower) continue;
+    const computed = (torqueNm[i] as number) * v * k;
+    if (!(computed > 0)) continue;
+    const ratio = p / computed;
+    ratios[m++] = ratio;
+    const dev = Math.abs(ratio - 1);
+    if (dev > worstDev || worst === -1) {
+      worstDev = dev;
+      worst = i;
+    }
+  }
+  const tolerancePct = `${(POWER_TORQUE_TOLERANCE * 100).toFixed(0)} %`;
+  if (m === 0 || worst === -1) {
+    return {
+      tolerance: POWER_TORQUE_TOLERANCE,
+      samplesCompared: 0,
+      largest: null,
+      medianRatio: null,
+      impliedCircumferenceM: null,
+      flagged: false,
+      message: 'No sample had enough speed and power to compare reported power with torque × wheel speed.',
+    };
+  }
+  const median = medianInPlace(ratios, m);
+  const computedW = (torqueNm[worst] as number) * (speedMs[worst] as number) * k;
+  const reported = reportedW[worst] as number;
+  const relative = (reported - computedW) / computedW;
+  const flagged = Math.abs(relative) > POWER_TORQUE_TOLERANCE;
+  const implied = circumferenceM / median;
+  const at = formatSpeed(speedMs[worst] as number, system).text;
+  const message = flagged
+    ? `Reported power and torque × wheel speed differ by up to ${(relative * 100).toFixed(1)} % (at ${at}, line ${lines[worst]}), more than the ${tolerancePct} allowed. The power column agrees best with a wheel circumference of ${formatLength(implied, system).text}: check the tyre size, or whether the data was edited.`
+    : `Reported power agrees with torque × wheel speed within ${tolerancePct} (largest difference ${(relative * 100).toFixed(1)} % at ${at}).`;
+  return {
+    tolerance: POWER_TORQUE_TOLERANCE,
+    samplesCompared: m,
+    largest: { relative, speedMs: speedMs[worst] as number, row: lines[worst] as number, reportedW: reported, computedW },
+    medianRatio: median,
+    impliedCircumferenceM: implied,
+    flagged,
+    message,
+  };
+}

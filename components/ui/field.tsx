@@ -20,10 +20,10 @@ export function Field({ label, name, errors, hint, className, children }: FieldP
   );
 }
 
-export function TextField({ label, name, errors, hint, className, ...input }: FieldProps & ComponentProps<'input'>) {
+export function TextField({ label, name, errors, hint, className, inputClassName, ...input }: FieldProps & ComponentProps<'input'> & { inputClassName?: string }) {
   return (
     <Field label={label} name={name} errors={errors} hint={hint} className={className}>
-      <input id={name} name={name} className={clsx('field-input', errors?.length && 'border-fault-500')} aria-invalid={!!errors?.length} {...input} />
+      <input id={name} name={name} className={clsx('field-input', inputClassName, errors?.length && 'border-fault-500')} aria-invalid={!!errors?.length} {...input} />
     </Field>
   );
 }

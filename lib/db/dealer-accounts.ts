@@ -1,0 +1,29 @@
+import 'server-only';
+import type { Knex } from 'knex';
+import { db } from '@/db/connection';
+
+export type DealerAccount = {
+  id: string; dealerId: string; brandId: string; brandName: string; dealerName: string; accountNumber: string;
+  laborRateMinor: number; currency: string; maxLaborRateMinor: number;
+};
+
+const columns = [
+  'a.id', 'a.dealer_id as dealerId', 'a.brand_id as brandId', 'b.name as brandName', 'd.name as dealerName',
+  'a.account_number as accountNumber', 'a.labor_rate_minor as laborRateMinor', 'a.currency', 'b.max_labor_rate_minor as maxLaborRateMinor',
+];
+
+function base(q: Knex) {
+  return q('dealer_accounts as a').join('organisations as b', 'b.id', 'a.brand_id').join('organisations as d', 'd.id', 'a.dealer_id');
+}
+
+export async function findDealerAccount(dealerId: string, brandId: string, q: Knex = db()): Promise<DealerAccount | null> {
+  return (await base(q).select(columns).where({ 'a.dealer_id': dealerId, 'a.brand_id': brandId }).first()) ?? null;
+}
+
+export async function dealerAccounts(dealerId: string): Promise<DealerAccount[]> {
+  return base(db()).select(columns).where('a.dealer_id', dealerId).orderBy('b.name');
+}
+
+export async function brandDealerAccounts(brandId: string): Promise<DealerAccount[]> {
+  return base(db()).select(columns).where('a.brand_id', brandId).orderBy('d.name');
+}

@@ -100,8 +100,10 @@ export async function findClaimForUser(user: AppUser, id: string, q: Knex = db()
 }
 
 /** Unscoped read for the server's own jobs (deadlines, carriers); never for a user's request. */
-export async function findClaimById(id: string, q: Knex = db()): Promise<ClaimRecord | null> {
-  const r = await claimBase(q).select(claimColumns).where('c.id', id).first();
+export async function findClaimById(id: string, q: Knex = db(), lock = false): Promise<ClaimRecord | null> {
+  const query = claimBase(q).select(claimColumns).where('c.id', id);
+  if (lock) query.forUpdate('c');
+  const r = await query.first();
   return r ? toClaim(r) : null;
 }
 

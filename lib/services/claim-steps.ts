@@ -1,12 +1,18 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/connection';
-import { findClaimForUser, insertEvent, writeStep, type ClaimRecord } from '@/lib/db/claims';
+import { findClaimById, findClaimForUser, insertEvent, writeStep, type ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/errors';
 import { describeState, EVENT_RULES, stepClaim, type ClaimEvent, type ClaimEventType, type StoredClaim } from '@/machines/claim';
 
-export type StepContext = { trx: Knex; claim: ClaimRecord; user: AppUser; at: string };
+/** Who takes a step: a signed-in user (tenant-scoped), or the server's own clock (`system`). */
+export type StepActor = AppUser | SystemActor;
+export type SystemActor = { kind: 'system'; reason: string };
+export const SYSTEM: SystemActor = { kind: 'system', reason: 'scheduled job' };
+const isSystem = (a: StepActor): a is SystemActor => (a as SystemActor).kind === 'system';
+
+export type StepContext = { trx: Knex; claim: ClaimRecord; user: StepActor; at: string };
 
 export type StepOptions = {
   /** The version the caller last saw; a different current version is a stale step (409). */
@@ -35,14 +41,14 @@ function currentOf(claim: ClaimRecord) {
  * version. A refused or stale step throws and changes nothing.
  */
 export async function applyStep(
-  user: AppUser,
+  user: StepActor,
   claimId: string,
   type: ClaimEventType,
   payload: Record<string, unknown>,
   opts: StepOptions = {},
 ): Promise<StepOutcome> {
   return db().transaction(async (trx) => {
-    const claim = await findClaimForUser(user, claimId, trx, true);
+    const claim = isSystem(user) ? await findClaimById(claimId, trx, true) : await findClaimForUser(user, claimId, trx, true);
     if (!claim) throw new NotFoundError('No such claim.');
     if (opts.expectedVersion !== undefined && opts.expectedVersion !== claim.version) {
       throw new ConflictError('This claim changed since you opened it. Here is where it stands now; nothing was changed.', currentOf(claim));
@@ -50,11 +56,12 @@ export async function applyStep(
     const at = new Date().toISOString();
     const ctx: StepContext = { trx, claim, user, at };
     const prepared = opts.prepare ? await opts.prepare(ctx) : {};
-    const event = { ...payload, ...prepared, type, actor: { id: user.id, role: user.role }, at } as ClaimEvent;
+    const actor = isSystem(user) ? { id: 'system', role: 'system' as const } : { id: user.id, role: user.role };
+    const event = { ...payload, ...prepared, type, actor, at } as ClaimEvent;
     const stored: StoredClaim = { value: claim.stateValue, context: claim.context };
     const result = stepClaim(stored, event);
     if (!result.ok) {
-      const roleNeverAllowed = !(EVENT_RULES[type].roles as readonly string[]).includes(user.role);
+      const roleNeverAllowed = !(EVENT_RULES[type].roles as readonly string[]).includes(actor.role);
       if (roleNeverAllowed) throw new ForbiddenError(result.refusal);
       throw new ConflictError(result.refusal, currentOf(claim));
     }
@@ -63,7 +70,7 @@ export async function applyStep(
     if (!written) throw new ConflictError('Someone else changed this claim at the same moment; nothing was changed.', currentOf(claim));
     const { actor: _a, at: _t, type: _ty, ...rest } = event as ClaimEvent & Record<string, unknown>;
     await insertEvent(trx, {
-      claimId: claim.id, actorId: user.id, actorRole: user.role, event: type,
+      claimId: claim.id, actorId: isSystem(user) ? null : user.id, actorRole: actor.role, event: type,
       fromState: result.from, toState: result.to, payload: opts.logPayload ?? rest,
     });
     if (opts.after) await opts.after(ctx, result.stored, event);

@@ -31,8 +31,11 @@ export const POWER_BAND_FRACTION = 0.9;
  */
 export const POWER_TORQUE_TOLERANCE = 0.05;
 
-/** Samples below this share of peak power are left out of the consistency check: at low power small offsets dominate the ratio. */
-export const CONSISTENCY_MIN_POWER_FRACTION = 0.1;
+/**
+ * The consistency check looks at samples with at least half of peak power: the part of the curve
+ * the verdict rests on (peak and band). Lower down, sensor offset and noise dominate the ratio.
+ */
+export const CONSISTENCY_MIN_POWER_FRACTION = 0.5;
 
 /** Width of a speed bin in m/s per unit system: 1 km/h or 1 mph. */
 export const BIN_WIDTH_MS = { metric: 1 / 3.6, imperial: MPH_MS } as const;

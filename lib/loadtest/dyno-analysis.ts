@@ -82,41 +82,39 @@ export function analyseDyno(run: DynoRun, options: DynoAnalysisOptions): DynoAna
   const motorThreshold = MOTOR_POWER_THRESHOLD_W;
   const { timeS: t, speedMs: v, lines } = run;
 
-  const raw = [v, ...(run.wheelPowerW ? [run.wheelPowerW] : []), ...(run.wheelTorqueNm ? [run.wheelTorqueNm] : [])];
+  // Power computed from torque per sample (T·v/r), smoothed like the rest: the basis when the file
+  // has no power column, and what reported power is checked against when it has both.
+  let torquePower: Float64Array | null = null;
+  if (run.wheelTorqueNm) {
+    const T = run.wheelTorqueNm;
+    torquePower = new Float64Array(n);
+    for (let i = 0; i < n; i++) torquePower[i] = (T[i] as number) * ((v[i] as number) / r);
+  }
+  const raw = [v];
+  if (run.wheelPowerW) raw.push(run.wheelPowerW);
+  if (run.wheelTorqueNm && torquePower) raw.push(run.wheelTorqueNm, torquePower);
   const smoothed = movingAverages(t, raw, windowS);
   const vs = smoothed[0] as Float64Array;
   const Ps = run.wheelPowerW ? (smoothed[1] as Float64Array) : null;
-  const Ts = run.wheelTorqueNm ? (smoothed[raw.length - 1] as Float64Array) : null;
+  const Ts = run.wheelTorqueNm ? (smoothed[raw.length - 2] as Float64Array) : null;
+  const TPs = run.wheelTorqueNm ? (smoothed[raw.length - 1] as Float64Array) : null;
 
   // Whichever of power and torque the file lacks comes from the other: P = T·v/r.
-  let power: Float64Array;
+  const power = (Ps ?? TPs) as Float64Array;
+  const rawPower = (run.wheelPowerW ?? torquePower) as Float64Array;
   let torque: Float64Array;
-  let rawPower: Float64Array;
   let rawTorque: Float64Array;
-  if (Ps && Ts) {
-    power = Ps;
+  if (Ts && run.wheelTorqueNm) {
     torque = Ts;
-    rawPower = run.wheelPowerW as Float64Array;
-    rawTorque = run.wheelTorqueNm as Float64Array;
-  } else if (Ts) {
-    torque = Ts;
-    rawTorque = run.wheelTorqueNm as Float64Array;
-    power = new Float64Array(n);
-    rawPower = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      power[i] = (Ts[i] as number) * ((vs[i] as number) / r);
-      rawPower[i] = (rawTorque[i] as number) * ((v[i] as number) / r);
-    }
+    rawTorque = run.wheelTorqueNm;
   } else {
-    const P = Ps as Float64Array;
-    power = P;
-    rawPower = run.wheelPowerW as Float64Array;
+    // Torque from power is taken on the smoothed signals: dividing raw power by a raw, noisy speed near the slowest speed would amplify noise.
     torque = new Float64Array(n);
     rawTorque = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const sv = vs[i] as number;
       const rv = v[i] as number;
-      torque[i] = sv >= minSpeed ? (P[i] as number) * (r / sv) : NaN;
+      torque[i] = sv >= minSpeed ? (power[i] as number) * (r / sv) : NaN;
       rawTorque[i] = rv >= minSpeed ? (rawPower[i] as number) * (r / rv) : NaN;
     }
   }
@@ -147,7 +145,7 @@ export function analyseDyno(run: DynoRun, options: DynoAnalysisOptions): DynoAna
   }
 
   const consistency =
-    Ps && Ts ? checkPowerTorque(vs, Ps, Ts, lines, C, peakPower.watts, options.units) : null;
+    Ps && TPs ? checkPowerTorque(vs, Ps, TPs, lines, C, peakPower.watts, options.units) : null;
   const legal = options.legalClass ? checkLegalSpeed(topSpeedUnderPower?.speedMs ?? null, options.legalClass) : null;
 
   return {

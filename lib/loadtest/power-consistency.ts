@@ -22,14 +22,14 @@ export interface PowerTorqueConsistency {
 }
 
 /**
- * Compare reported wheel power with torque × wheel angular speed (P = T·ω, ω = v/r = 2πv/C), on
- * the smoothed signals. Only samples at or above the slowest compared speed and above both the
- * motor threshold and a tenth of peak power count.
+ * Compare reported wheel power with torque × wheel angular speed (P = T·ω, ω = v/r = 2πv/C), both
+ * smoothed alike. `computedW` is T·v/r per sample for `circumferenceM`, then smoothed. Only samples
+ * at or above the slowest compared speed and at or above half of peak power count.
  */
 export function checkPowerTorque(
   speedMs: Float64Array,
   reportedW: Float64Array,
-  torqueNm: Float64Array,
+  computedW: Float64Array,
   lines: Int32Array,
   circumferenceM: number,
   peakPowerW: number,
@@ -37,7 +37,6 @@ export function checkPowerTorque(
 ): PowerTorqueConsistency {
   const n = speedMs.length;
   const minPower = Math.max(MOTOR_POWER_THRESHOLD_W, CONSISTENCY_MIN_POWER_FRACTION * peakPowerW);
-  const k = (2 * Math.PI) / circumferenceM;
   const minSpeed = MIN_SPEED_FOR_RATIO_MS;
   const ratios = new Float64Array(n);
   let m = 0;
@@ -47,7 +46,7 @@ export function checkPowerTorque(
     const v = speedMs[i] as number;
     const p = reportedW[i] as number;
     if (v < minSpeed || p < minPower) continue;
-    const computed = (torqueNm[i] as number) * v * k;
+    const computed = computedW[i] as number;
     if (!(computed > 0)) continue;
     const ratio = p / computed;
     ratios[m++] = ratio;
@@ -70,9 +69,9 @@ export function checkPowerTorque(
     };
   }
   const median = medianInPlace(ratios, m);
-  const computedW = (torqueNm[worst] as number) * (speedMs[worst] as number) * k;
+  const computed = computedW[worst] as number;
   const reported = reportedW[worst] as number;
-  const relative = (reported - computedW) / computedW;
+  const relative = (reported - computed) / computed;
   const flagged = Math.abs(relative) > POWER_TORQUE_TOLERANCE;
   const implied = circumferenceM / median;
   const at = formatSpeed(speedMs[worst] as number, system).text;
@@ -82,7 +81,7 @@ export function checkPowerTorque(
   return {
     tolerance: POWER_TORQUE_TOLERANCE,
     samplesCompared: m,
-    largest: { relative, speedMs: speedMs[worst] as number, row: lines[worst] as number, reportedW: reported, computedW },
+    largest: { relative, speedMs: speedMs[worst] as number, row: lines[worst] as number, reportedW: reported, computedW: computed },
     medianRatio: median,
     impliedCircumferenceM: implied,
     flagged,

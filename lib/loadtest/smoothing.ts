@@ -7,7 +7,9 @@ export function movingAverages(time: Float64Array, signals: readonly Float64Arra
   const n = time.length;
   const loAt = new Int32Array(n);
   const hiAt = new Int32Array(n);
-  const half = windowS / 2;
+  // A millionth of slack, so a sample exactly on either window edge is counted on both sides alike
+  // (t + half and t − half round differently in floating point).
+  const half = (windowS / 2) * (1 + 1e-6);
   let lo = 0;
   let hi = 0;
   for (let i = 0; i < n; i++) {

@@ -224,7 +224,7 @@ describe('legal-class flag at and just beyond each limit', () => {
     expect(tampering(steady(28.01, 'speed_mph'), 'us-class-3')).toBe(true);
   });
 
-  it('exceedsLimit: at the limit is not over; a billionth beyond is float round-off; a millionth beyond is over', async () => {
+  it('exceedsLimit: at the limit is not over; a trillionth beyond is float round-off, not over; a millionth beyond is over', async () => {
     const { exceedsLimit } = await import('@/lib/loadtest');
     const limit = 25 / 3.6;
     expect(exceedsLimit(limit, limit)).toBe(false);

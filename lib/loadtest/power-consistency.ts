@@ -57,6 +57,7 @@ export function checkPowerTorque(
     }
   }
   const tolerancePct = `${(POWER_TORQUE_TOLERANCE * 100).toFixed(0)} %`;
+  const pct = (x: number) => `${(Math.abs(x) < 0.0005 ? 0 : x * 100).toFixed(1)} %`;
   if (m === 0 || worst === -1) {
     return {
       tolerance: POWER_TORQUE_TOLERANCE,
@@ -76,8 +77,8 @@ export function checkPowerTorque(
   const implied = circumferenceM / median;
   const at = formatSpeed(speedMs[worst] as number, system).text;
   const message = flagged
-    ? `Reported power and torque × wheel speed differ by up to ${(relative * 100).toFixed(1)} % (at ${at}, line ${lines[worst]}), more than the ${tolerancePct} allowed. The power column agrees best with a wheel circumference of ${formatLength(implied, system).text}: check the tyre size, or whether the data was edited.`
-    : `Reported power agrees with torque × wheel speed within ${tolerancePct} (largest difference ${(relative * 100).toFixed(1)} % at ${at}).`;
+    ? `Reported power and torque × wheel speed differ by up to ${pct(relative)} (at ${at}, line ${lines[worst]}), more than the ${tolerancePct} allowed. The power column agrees best with a wheel circumference of ${formatLength(implied, system).text}: check the tyre size, or whether the data was edited.`
+    : `Reported power agrees with torque × wheel speed within ${tolerancePct} (largest difference ${pct(relative)} at ${at}).`;
   return {
     tolerance: POWER_TORQUE_TOLERANCE,
     samplesCompared: m,

@@ -1,5 +1,5 @@
 import { siScale, type Quantity, type UnitOf } from '@/lib/units';
-import type { ColumnMapping, ColumnQuantity, ColumnRole } from './columns';
+import { headerSignature, type ColumnMapping, type ColumnQuantity, type ColumnRole } from './columns';
 import { detectDialect, type DecimalMark, type Delimiter } from './csv-dialect';
 import { columnRef, type LoadtestIssue } from './issues';
 import { MIN_SAMPLES } from './limits';
@@ -7,7 +7,6 @@ import { readColumns } from './read-columns';
 import { QUANTITY_NAMES, resolveColumns, type ImportSpec, type NeedsMapping } from './resolve-columns';
 import { readLoadtestText, type LoadtestInput } from './text-input';
 import { orderByTime } from './time-order';
-import { headerSignature } from './columns';
 
 /** Which unit quantity each column quantity converts with. */
 const UNIT_QUANTITY: Record<ColumnQuantity, Quantity> = {

@@ -8,6 +8,7 @@ export type IssueCode =
   | 'duplicate-header'
   | 'mixed-decimal-marks'
   | 'wrong-field-count'
+  | 'bad-quotes'
   | 'missing-value'
   | 'not-a-number'
   | 'negative-value'

@@ -32,15 +32,20 @@ export interface ColumnsRead {
 const CHUNK_CHARS = 256 * 1024;
 
 /**
- * Feed papaparse whole lines, a chunk at a time. (Papaparse's own string streaming keeps every
- * chunk reachable until the end of the file, several times the file's size in memory.) A chunk
- * only ends at a line break outside quotes: an even number of quote characters before it.
+ * Feed papaparse whole lines, a chunk at a time, through its `Parser` class. Papaparse's own string
+ * streaming keeps every chunk reachable to the end of the file (several times the file's size in
+ * memory), and `Papa.parse` on each chunk spends most of its time in garbage collection of results
+ * its wrapper keeps alive; the `Parser` underneath does the same parsing without either (measured
+ * with tests/bench/loadtest-dyno.ts). A chunk only ends at a line break outside quotes: after an
+ * even number of quote characters.
  */
-function forEachChunk(body: string, dialect: CsvDialect, onChunk: (res: Papa.ParseResult<string[]>) => void): void {
+function forEachChunk(body: string, dialect: CsvDialect, onChunk: (res: Papa.ParseResult<string[]>, text: string) => void): void {
   const nl = dialect.newline;
   const len = body.length;
   // Next quote character at or after the scan position; found one at a time so the whole scan stays linear.
   let nextQuote = body.indexOf('"');
+  // Exported by papaparse and typed in @types/papaparse; parse() starts afresh on every call.
+  const parser = new Papa.Parser({ delimiter: dialect.delimiter, newline: nl });
   let pos = 0;
   while (pos < len) {
     let end = len;
@@ -61,7 +66,8 @@ function forEachChunk(body: string, dialect: CsvDialect, onChunk: (res: Papa.Par
     }
     // Leave out the chunk's final line break: papaparse would report an empty row after it.
     const chunkEnd = end - pos >= nl.length && body.startsWith(nl, end - nl.length) ? end - nl.length : end;
-    onChunk(Papa.parse<string[]>(body.slice(pos, chunkEnd), { delimiter: dialect.delimiter, newline: nl }));
+    const text = body.slice(pos, chunkEnd);
+    onChunk(parser.parse(text, 0, false) as Papa.ParseResult<string[]>, text);
     pos = end;
   }
 }
@@ -102,9 +108,10 @@ export function readColumns(text: string, dialect: CsvDialect, specs: readonly C
 
   const errors: LoadtestIssue[] = [];
   let errorCount = 0;
+  // Keep plenty, sort by line and column, then cut: papaparse reports quoting problems per chunk.
   const report = (issue: LoadtestIssue) => {
     errorCount++;
-    if (errors.length < MAX_REPORTED_ERRORS) errors.push(issue);
+    if (errors.length < 50 * MAX_REPORTED_ERRORS) errors.push(issue);
   };
 
   let n = 0;
@@ -129,8 +136,9 @@ export function readColumns(text: string, dialect: CsvDialect, specs: readonly C
     }
   };
 
-  forEachChunk(body, dialect, (res) => {
+  forEachChunk(body, dialect, (res, chunkText) => {
     const rows = res.data;
+    const chunkFirstLine = line + 1;
     for (let r = 0; r < rows.length; r++) {
       const row = rows[r] as string[];
       line++;
@@ -195,10 +203,18 @@ export function readColumns(text: string, dialect: CsvDialect, specs: readonly C
     }
     for (const e of res.errors) {
       if (e.code === 'TooFewFields' || e.code === 'TooManyFields') continue;
-      report({ code: 'wrong-field-count', message: `The CSV quoting is broken near line ${line}: ${e.message}.` });
+      // Papaparse gives the character offset in the chunk; count line breaks up to it.
+      const at = typeof e.index === 'number' ? chunkFirstLine + countChar(chunkText.slice(0, e.index), newlineChar) : line;
+      report({
+        code: 'bad-quotes',
+        row: at,
+        message: `Line ${at}: a double quote is not closed (${e.message.toLowerCase()}). Quote whole values, and write a quote inside a value as "".`,
+      });
     }
   });
 
+  errors.sort((a, b) => (a.row ?? Infinity) - (b.row ?? Infinity) || (a.columnNumber ?? 0) - (b.columnNumber ?? 0));
+  errors.length = Math.min(errors.length, MAX_REPORTED_ERRORS);
   return { values: values.map((v) => v.subarray(0, n)), lines: lines.subarray(0, n), count: n, nonZero, errors, errorCount };
 }
 

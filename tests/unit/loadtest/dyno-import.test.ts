@@ -137,11 +137,14 @@ describe('dyno CSV: refused files name what is wrong', () => {
   });
 
   it('non-numeric and empty values, naming line and column', () => {
-    const e = errors(parseDynoCsv(`${HEADER}\n0,1,2,3\n1,fast,2,3\n2,3,,4\n3,4,0x1F,5\n`));
+    const e = errors(parseDynoCsv(`${HEADER}\n0,1,2,3\n1,fast,2,3\n2,3,,4\n3,4,0x1F,5\n4,5,1,-1\n5,x,y,1\n`));
     expect(e.map((x) => [x.code, x.row, x.columnNumber])).toEqual([
       ['not-a-number', 3, 2],
       ['missing-value', 4, 3],
       ['not-a-number', 5, 3],
+      ['negative-value', 6, 4],
+      ['not-a-number', 7, 2],
+      ['not-a-number', 7, 3],
     ]);
     expect(e[0]?.message).toBe('Line 3, column 2 "speed_kmh": "fast" is not a number.');
   });
@@ -154,6 +157,16 @@ describe('dyno CSV: refused files name what is wrong', () => {
 
   it('mixed decimal marks in the sampled lines', () => {
     expect(errors(parseDynoCsv('time_s;speed_kmh;wheel_power_w\n0,5;1,5;10\n1.5;2.5;10\n'))[0]).toMatchObject({ code: 'mixed-decimal-marks', row: 3 });
+  });
+
+  it('an unclosed quote, naming the line it starts on', () => {
+    const e = errors(parseDynoCsv(`${HEADER}\n0,1,2,3\n1,2,3,4\n2,"3,4,5\n3,4,5,6\n`));
+    expect(e.find((x) => x.code === 'bad-quotes')).toMatchObject({ row: 4 });
+  });
+
+  it('old Mac line ends (CR only) read like any other', () => {
+    const run = ok(parseDynoCsv(`${HEADER}\r0,1,2,3\r1,2,3,4\r`));
+    expect(Array.from(run.lines)).toEqual([2, 3]);
   });
 
   it('a line with too few values', () => {
@@ -180,9 +193,10 @@ describe('dyno CSV: refused files name what is wrong', () => {
   });
 
   it('stops listing after 20 errors and counts the rest', () => {
-    const rows = [HEADER, ...Array.from({ length: 30 }, (_, i) => `${i},x,1,1`)];
+    const rows = [HEADER, ...Array.from({ length: 30 }, (_, i) => `${i},${i % 2 ? 'x' : 1},${i % 2 ? 1 : 'y'},1`)];
     const e = errors(parseDynoCsv(rows.join('\n')));
     expect(e).toHaveLength(21);
+    expect(e.slice(0, 20).map((x) => x.row)).toEqual(Array.from({ length: 20 }, (_, i) => i + 2)); // in line order across columns
     expect(e[20]).toMatchObject({ code: 'more-errors', message: '…and 10 more problems of the same kinds.' });
   });
 });

@@ -8,6 +8,7 @@ import { evidenceCounts } from '@/lib/db/attachments';
 import { findModel, findPart, findRegisteredUnit, listLaborOperations } from '@/lib/db/catalog';
 import { findClaimForUser, insertClaim, insertEvent, nextSequence, openClaimsOnSerial, updateDraftClaim, type ClaimRecord, type ClaimRowInput, type RequestedLines } from '@/lib/db/claims';
 import { findDealerAccount } from '@/lib/db/dealer-accounts';
+import { countAnalysedRuns } from '@/lib/db/load-tests';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@/lib/errors';
 import { parseAmount, type CurrencyCode } from '@/lib/money';
@@ -102,7 +103,8 @@ export async function evidenceSummaryFor(claim: Pick<ClaimRecord, 'id' | 'regist
   return {
     photos: (c.photo ?? 0) + serialLabelPhotos,
     serialLabelPhotos,
-    beforeTests: c.load_test_before ?? 0,
+    // Only a before-test that analysed counts; a load-test file is recorded only with its analysis.
+    beforeTests: await countAnalysedRuns(claim.id, 'before', q),
     proofOfPurchase: (c.proof_of_purchase ?? 0) > 0,
     registered: claim.registeredUnitId !== null,
   };

@@ -1,8 +1,8 @@
 import 'server-only';
 import { createHash, randomUUID } from 'node:crypto';
 import { db } from '@/db/connection';
-import { ATTACHMENT_LABELS, canAttach, declaredFileProblem, extensionOf, PHOTO_KINDS, ruleFor, type AttachmentKind } from '@/lib/claims/attachment-rules';
-import { deleteIntent, findAttachmentForUser, findIntent, insertAttachment, insertIntent } from '@/lib/db/attachments';
+import { ATTACHMENT_LABELS, canAttach, declaredFileProblem, extensionOf, LOAD_TEST_KINDS, PHOTO_KINDS, ruleFor, type AttachmentKind } from '@/lib/claims/attachment-rules';
+import { deleteIntent, findAttachmentForUser, findIntent, insertAttachment, insertIntent, type UploadIntent } from '@/lib/db/attachments';
 import { findClaimForUser, type ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, NotFoundError, ValidationError } from '@/lib/errors';
@@ -19,7 +19,7 @@ function partyOf(user: AppUser): 'dealer' | 'brand_rep' | 'warehouse' | null {
   return null;
 }
 
-function assertMayAttach(user: AppUser, claim: ClaimRecord, kind: AttachmentKind) {
+export function assertMayAttach(user: AppUser, claim: ClaimRecord, kind: AttachmentKind) {
   const who = partyOf(user);
   if (!who || !canAttach(kind, who, claim.stage)) {
     throw new ConflictError(`A ${ATTACHMENT_LABELS[kind].toLowerCase()} cannot be added to this claim now (it is ${claim.stage.replace(/_/g, ' ')}).`, { stage: claim.stage });
@@ -50,6 +50,23 @@ export async function requestUpload(
   return { intentId, url: await presignPut(storageKey, contentType, INTENT_MINUTES * 60), headers: { 'Content-Type': contentType } };
 }
 
+/**
+ * The bytes of an upload as stored, once it is certain they are what the browser declared: it
+ * arrived in time, with the declared size (within the kind's limit) and the declared SHA-256.
+ */
+export async function arrivedBytes(intent: UploadIntent): Promise<{ ok: true; bytes: Buffer } | { ok: false; message: string }> {
+  if (intent.expiresAt < new Date()) return { ok: false, message: `The upload of ${intent.fileName} took too long; add the file again.` };
+  const head = await headObject(intent.storageKey);
+  if (!head) return { ok: false, message: `${intent.fileName} never arrived at storage; add it again.` };
+  const rule = ruleFor(intent.kind);
+  if (head.size !== intent.declaredSize) return { ok: false, message: `${intent.fileName} arrived with ${head.size} bytes instead of ${intent.declaredSize}; add it again.` };
+  if (head.size > rule.maxBytes) return { ok: false, message: `${intent.fileName} is larger than allowed (${rule.describe}).` };
+  const bytes = await getObjectBytes(intent.storageKey);
+  const sha = createHash('sha256').update(bytes).digest('hex');
+  if (sha !== intent.declaredSha256) return { ok: false, message: `${intent.fileName} changed on the way (its checksum does not match); add it again.` };
+  return { ok: true, bytes };
+}
+
 export type RecordedAttachment = { id: string; kind: AttachmentKind; fileName: string; contentType: string; sizeBytes: number; sha256: string };
 
 /**
@@ -70,17 +87,15 @@ export async function completeUpload(user: AppUser, claimId: string, intentId: s
     throw new ValidationError(message, { file: [message] });
   };
 
+  // Load tests are analysed as they are recorded, with their test conditions (lib/services/load-tests.ts).
+  if (LOAD_TEST_KINDS.includes(intent.kind)) {
+    throw new ValidationError('A load test is added with its test conditions: use the load-test form on the claim.', { file: ['Use the load-test form.'] });
+  }
   try {
-    if (intent.expiresAt < new Date()) return await refuse(`The upload of ${intent.fileName} took too long; add the file again.`);
-    const head = await headObject(intent.storageKey);
-    if (!head) return await refuse(`${intent.fileName} never arrived at storage; add it again.`);
+    const arrived = await arrivedBytes(intent);
+    if (!arrived.ok) return await refuse(arrived.message);
+    const bytes = arrived.bytes;
     const rule = ruleFor(intent.kind);
-    if (head.size !== intent.declaredSize) return await refuse(`${intent.fileName} arrived with ${head.size} bytes instead of ${intent.declaredSize}; add it again.`);
-    if (head.size > rule.maxBytes) return await refuse(`${intent.fileName} is larger than allowed (${rule.describe}).`);
-
-    const bytes = await getObjectBytes(intent.storageKey);
-    const sha = createHash('sha256').update(bytes).digest('hex');
-    if (sha !== intent.declaredSha256) return await refuse(`${intent.fileName} changed on the way (its checksum does not match); add it again.`);
 
     const sniffed = await sniffType(bytes, { expectCsv: intent.kind === 'load_test_before' || intent.kind === 'load_test_after' });
     if (!sniffed.mime || !rule.types.includes(sniffed.mime)) {

@@ -4,6 +4,8 @@ import type { AppUser } from '@/lib/db/users';
 import { ValidationError } from '@/lib/errors';
 import type { StepOutcome } from '@/lib/services/claim-steps';
 import { submitClaim, withdrawClaim } from '@/lib/services/claims';
+import { acceptAfterTestByHand, markFitted, submitAfterTest } from '@/lib/services/load-tests';
+import { acceptByHandSchema, afterTestStepSchema } from '@/lib/validation/load-tests';
 import { CLAIM_EVENT_TYPES, type ClaimEventType } from '@/machines/claim';
 
 export const stepRequestSchema = z.looseObject({
@@ -22,6 +24,10 @@ const note = z.object({ note: z.string().trim().max(1000).optional() });
 export const stepHandlers: Partial<Record<ClaimEventType, Handler>> = {
   SUBMIT: (user, id, _body, version) => submitClaim(user, id, version),
   WITHDRAW: (user, id, body, version) => withdrawClaim(user, id, note.parse(body).note, version),
+  // Whether the after-test passes is read from its stored analysis; the body only names the run.
+  MARK_FITTED: (user, id, body, version) => markFitted(user, id, afterTestStepSchema.parse(body).afterTestId, version),
+  SUBMIT_AFTER_TEST: (user, id, body, version) => submitAfterTest(user, id, afterTestStepSchema.parse(body).afterTestId, version),
+  ACCEPT_BY_HAND: (user, id, body, version) => acceptAfterTestByHand(user, id, acceptByHandSchema.parse(body).reason, version),
 };
 
 export async function runStepRequest(user: AppUser, claimId: string, body: unknown): Promise<StepOutcome> {

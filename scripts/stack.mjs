@@ -338,10 +338,11 @@ async function main() {
   if (testing) ensureChromium();
   await startPostgres(pgBin);
 
+  // The fakes first: the demo scenario puts its load-test files and photos into storage.
+  await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
+
   log('migrating and loading the demo scenario…');
   run(bin('tsx'), ['scripts/migrate.ts'], { env: childEnv() });
-
-  await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
 
   if (testing) {
     const env = childEnv();

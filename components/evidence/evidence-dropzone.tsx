@@ -8,12 +8,12 @@ import { ATTACHMENT_LABELS, declaredFileProblem, ruleFor, type AttachmentKind } 
 
 type Item = { key: string; name: string; progress: number; status: 'hashing' | 'uploading' | 'checking' | 'done' | 'failed'; message?: string };
 
-async function sha256Hex(file: File): Promise<string> {
+export async function sha256Hex(file: File): Promise<string> {
   const digest = await crypto.subtle.digest('SHA-256', await file.arrayBuffer());
   return [...new Uint8Array(digest)].map((b) => b.toString(16).padStart(2, '0')).join('');
 }
 
-function putWithProgress(url: string, file: File, headers: Record<string, string>, onProgress: (p: number) => void): Promise<void> {
+export function putWithProgress(url: string, file: File, headers: Record<string, string>, onProgress: (p: number) => void): Promise<void> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('PUT', url);

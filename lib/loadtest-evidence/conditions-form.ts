@@ -9,33 +9,9 @@ import {
   toSi,
   type UnitSystem,
 } from '@/lib/units';
+import { CONDITION_LABELS as LABEL, EMPTY_CONDITIONS_FORM, type ConditionsForm, type ConditionsFormField } from './form-labels';
 
-/** The test-conditions form as typed, in the user's units. Every field may be left empty. */
-export interface ConditionsForm {
-  batterySocStartPct: string;
-  tyreSize: string;
-  measuredCircumference: string;
-  tyrePressure: string;
-  tyreMaxPressure: string;
-  dynoId: string;
-  rollerId: string;
-  load: string;
-  ambientTemp: string;
-  notes: string;
-}
-
-export type ConditionsFormField = keyof ConditionsForm;
-
-export const EMPTY_CONDITIONS_FORM: ConditionsForm = {
-  batterySocStartPct: '', tyreSize: '', measuredCircumference: '', tyrePressure: '', tyreMaxPressure: '', dynoId: '', rollerId: '',
-  load: '', ambientTemp: '', notes: '',
-};
-
-/** Units the form shows per unit system. A measured roll-out is in mm or inches, like the tape it is measured with. */
-export const FORM_UNITS = {
-  metric: { pressure: 'bar', load: 'kg', temperature: '°C', circumference: 'mm' },
-  imperial: { pressure: 'psi', load: 'lb', temperature: '°F', circumference: 'in' },
-} as const;
+export { CONDITION_LABELS, EMPTY_CONDITIONS_FORM, FORM_UNITS, type ConditionsForm, type ConditionsFormField } from './form-labels';
 
 const PRESSURE = { metric: 'bar', imperial: 'psi' } as const;
 const MASS = { metric: 'kg', imperial: 'lb' } as const;
@@ -60,20 +36,6 @@ function readNumber(text: string): number | null | 'bad' {
   return Number(t.replace(',', '.'));
 }
 
-const LABEL: Record<ConditionsFormField, string> = {
-  batterySocStartPct: 'Battery charge at start',
-  tyreSize: 'Tyre size',
-  measuredCircumference: 'Measured wheel circumference',
-  tyrePressure: 'Tyre pressure',
-  tyreMaxPressure: 'Sidewall maximum pressure',
-  dynoId: 'Dyno',
-  rollerId: 'Roller',
-  load: 'Rider or load',
-  ambientTemp: 'Room temperature',
-  notes: 'Notes',
-};
-
-export const CONDITION_LABELS = LABEL;
 
 const FIELD_OF: Partial<Record<ConditionField, ConditionsFormField>> = {
   batterySocStartPct: 'batterySocStartPct',

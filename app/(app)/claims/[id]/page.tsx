@@ -11,6 +11,7 @@ import { StepButton } from '@/components/claims/step-button';
 import { Timeline } from '@/components/claims/timeline';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
+import { LoadTestPanel } from '@/components/loadtest/load-test-panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { requireUser } from '@/lib/auth/session';
@@ -36,7 +37,6 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
   const dealerSlots: { kind: AttachmentKind; hint?: string }[] = [
     { kind: 'serial_label_photo', hint: 'The part’s label with its serial readable.' },
     { kind: 'photo', hint: 'The fault itself: damage, error on the display, the part on the bench.' },
-    { kind: 'load_test_before', hint: 'The dyno run or battery discharge, exported as CSV.' },
     ...(claim.registeredUnitId ? [] : [{ kind: 'proof_of_purchase' as const, hint: 'Receipt or invoice with the sale date (PDF or photo).' }]),
     { kind: 'diagnostic_log', hint: 'Optional: the diagnostic tool’s log.' },
   ];
@@ -97,6 +97,8 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
             ) : null}
             <EvidenceGallery claimId={claim.id} attachments={attachments} removable={isDealer && draft} />
           </section>
+
+          <LoadTestPanel user={user} claim={claim} allowed={allowed} />
 
           <section className="card p-5">
             <h2 className="mb-3">The fault</h2>

@@ -69,6 +69,7 @@ export async function LoadTestPanel({ user, claim, allowed }: { user: AppUser; c
           minPower={chart.minPower}
         />
       ) : null}
+      {chart ? <CurveNote runs={[before, after]} /> : null}
 
       {before || after ? <Figures view={view} /> : null}
 
@@ -160,6 +161,13 @@ export async function LoadTestPanel({ user, claim, allowed }: { user: AppUser; c
       {isDealer && !upload.before && !upload.after && !runs.length ? <p className="text-sm text-ink-muted">Load tests cannot be added at this stage.</p> : null}
     </section>
   );
+}
+
+/** Which samples the curve leaves out, so a reader can square the curve with the peaks. */
+export function CurveNote({ runs, className = '-mt-4' }: { runs: (RunView | null)[]; className?: string }) {
+  const cut = runs.flatMap((r) => (r && r.summary.kind === 'dyno' && r.summary.curve?.samplesLeftOut ? [`${r.phase === 'before' ? 'before' : 'after'}: ${r.summary.curve.samplesLeftOut.toLocaleString('en')} samples after ${r.summary.curve.throughTimeS.toFixed(1)} s`] : []));
+  if (!cut.length) return null;
+  return <p className={`${className} text-xs text-ink-muted`}>Each curve runs to the run’s top speed; the run-down after it is left out ({cut.join('; ')}).</p>;
 }
 
 const phaseName = (r: RunView) => (r.phase === 'before' ? 'Before-test' : 'After-test');

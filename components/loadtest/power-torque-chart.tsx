@@ -58,7 +58,7 @@ export function PowerTorqueChart({ axes, before, after, legalLimit, legalLabel, 
           }}
           labelFormatter={(v) => `${Number(v).toFixed(1)} ${axes.speedUnit}`}
         />
-        <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} />
+        <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} itemSorter={null} />
         {runs.map((r) => (
           <Line key={`${r.key}-power`} yAxisId="power" data={r.run.points} dataKey="power" name={`${r.label}: power`} stroke={r.colour} strokeWidth={2.5} dot={false} isAnimationActive={false} connectNulls />
         ))}
@@ -66,15 +66,15 @@ export function PowerTorqueChart({ axes, before, after, legalLimit, legalLabel, 
           <Line key={`${r.key}-torque`} yAxisId="torque" data={r.run.points} dataKey="torque" name={`${r.label}: torque`} stroke={r.colour} strokeWidth={1.75} strokeDasharray="6 4" dot={false} isAnimationActive={false} connectNulls />
         ))}
         {runs.map((r) => (
-          <ReferenceDot key={`${r.key}-pp`} yAxisId="power" x={r.run.peakPower.speed} y={r.run.peakPower.power} r={5} fill={r.colour} stroke="#fff" label={{ value: `${r.label} peak ${fmtPower(r.run.peakPower.power)} ${axes.powerUnit}`, position: 'top', fontSize: 11, fill: r.colour }} />
+          <ReferenceDot key={`${r.key}-pp`} yAxisId="power" ifOverflow="extendDomain" x={r.run.peakPower.speed} y={r.run.peakPower.power} r={5} fill={r.colour} stroke="#fff" label={{ value: `${r.label} peak ${fmtPower(r.run.peakPower.power)} ${axes.powerUnit}`, position: 'top', fontSize: 11, fill: r.colour }} />
         ))}
         {runs.map((r) =>
           r.run.peakTorque ? (
-            <ReferenceDot key={`${r.key}-pt`} yAxisId="torque" x={r.run.peakTorque.speed} y={r.run.peakTorque.torque} r={4} fill="#fff" stroke={r.colour} strokeWidth={2} />
+            <ReferenceDot key={`${r.key}-pt`} yAxisId="torque" ifOverflow="extendDomain" x={r.run.peakTorque.speed} y={r.run.peakTorque.torque} r={4} fill="#fff" stroke={r.colour} strokeWidth={2} />
           ) : null,
         )}
-        {minPower ? <ReferenceLine yAxisId="power" y={minPower} stroke={COLOURS.minimum} strokeDasharray="2 4" label={{ value: 'Part minimum', position: 'insideTopLeft', fontSize: 11, fill: COLOURS.minimum }} /> : null}
-        {legalLimit ? <ReferenceLine yAxisId="power" x={legalLimit} stroke={COLOURS.limit} strokeDasharray="4 3" label={{ value: legalLabel ?? 'Class limit', position: 'insideTopRight', fontSize: 11, fill: COLOURS.limit }} /> : null}
+        {minPower ? <ReferenceLine yAxisId="power" y={minPower} ifOverflow="extendDomain" stroke={COLOURS.minimum} strokeDasharray="2 4" label={{ value: 'Part minimum', position: 'insideTopLeft', fontSize: 11, fill: COLOURS.minimum }} /> : null}
+        {legalLimit ? <ReferenceLine yAxisId="power" x={legalLimit} ifOverflow="extendDomain" stroke={COLOURS.limit} strokeDasharray="4 3" label={{ value: legalLabel ?? 'Class limit', position: 'insideTopRight', fontSize: 11, fill: COLOURS.limit }} /> : null}
       </ComposedChart>
       <figcaption className="mt-1 text-xs text-ink-muted">
         Mean of the samples in each {axes.speedUnit === 'mph' ? '1 mph' : '1 km/h'} speed step. Solid: power; dashed: torque. Filled dots mark peak power, rings peak torque (from the {SMOOTHING_WINDOW_S} s moving average).

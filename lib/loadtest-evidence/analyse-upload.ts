@@ -3,14 +3,17 @@ import {
   analyseDyno,
   parseBatteryCsv,
   parseDynoCsv,
+  MIN_SAMPLES,
   type ColumnMapping,
   type ColumnRole,
+  type DynoAnalysis,
+  type DynoRun,
   type LoadtestInput,
   type LoadtestIssue,
   type NeedsMapping,
   type TestConditions,
 } from '@/lib/loadtest';
-import { wheelCircumference } from '@/lib/units';
+import { wheelCircumference, type UnitSystem } from '@/lib/units';
 import type { LoadTestKind, LoadTestSpec, LoadTestSummary } from './records';
 import { runVerdict, type RunVerdict } from './verdict';
 
@@ -50,10 +53,15 @@ export function analyseUpload(
     const run = imported.run;
     const legalClass = spec.kind === 'dyno' ? spec.legalClass : null;
     const options = { circumferenceM: wheel.metres, legalClass };
+    const metric = analyseDyno(run, { ...options, units: 'metric' });
+    const sweep = sweepOf(run, metric.topSpeed.timeS);
+    const withCurve = (units: UnitSystem, full: DynoAnalysis): DynoAnalysis =>
+      sweep === run ? full : { ...full, bins: analyseDyno(sweep, { ...options, units }).bins };
     const summary: LoadTestSummary = {
       kind: 'dyno',
-      metric: analyseDyno(run, { ...options, units: 'metric' }),
-      imperial: analyseDyno(run, { ...options, units: 'imperial' }),
+      metric: withCurve('metric', metric),
+      imperial: withCurve('imperial', analyseDyno(run, { ...options, units: 'imperial' })),
+      curve: { throughTimeS: metric.topSpeed.timeS, samplesLeftOut: run.count - sweep.count },
       fileUnits: run.fileUnits,
       circumference: { metres: wheel.metres, source: wheel.source, tyreIso: wheel.tyre?.iso ?? null, notes: wheel.notes },
       source: run.source,
@@ -72,6 +80,26 @@ export function analyseUpload(
     source: run.source,
   };
   return ok(summary, spec, run.warnings, run.source, run.count);
+}
+
+/**
+ * The run up to and including its top speed. A roller run-down after the sweep carries speed with
+ * no drive; left in, it would average zeros into every speed step the sweep passed through.
+ */
+function sweepOf(run: DynoRun, topSpeedTimeS: number): DynoRun {
+  let end = run.count;
+  while (end > MIN_SAMPLES && (run.timeS[end - 1] as number) > topSpeedTimeS) end--;
+  if (end === run.count) return run;
+  const cut = (a: Float64Array | null) => (a ? a.subarray(0, end) : null);
+  return {
+    ...run,
+    count: end,
+    timeS: run.timeS.subarray(0, end),
+    speedMs: run.speedMs.subarray(0, end),
+    wheelTorqueNm: cut(run.wheelTorqueNm),
+    wheelPowerW: cut(run.wheelPowerW),
+    lines: run.lines.subarray(0, end),
+  };
 }
 
 function ok(

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { z } from 'zod';
+import { CurveNote } from '@/components/loadtest/load-test-panel';
 import { PowerTorqueChart } from '@/components/loadtest/power-torque-chart';
 import { PrintButton } from '@/components/loadtest/print-button';
 import { BatteryFigures, ConditionsVerdict, conditionRows, DynoFigures, VerdictBadge } from '@/components/loadtest/run-figures';
@@ -50,6 +51,7 @@ export default async function LoadTestReportPage({ params }: { params: Promise<{
         <section className="print-avoid-break">
           <h2 className="mb-2">Wheel power and torque against speed</h2>
           <PowerTorqueChart axes={axes} before={chart.before} after={chart.after} legalLimit={chart.legalLimit} legalLabel={legalClass ? `${legalClass.name} limit` : undefined} minPower={chart.minPower} width={720} height={340} />
+          <CurveNote runs={[before, after]} className="mt-1" />
         </section>
       ) : null}
 

@@ -8,9 +8,9 @@ import { Notice } from '@/components/ui/notice';
 import type { ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { formatDateTime } from '@/lib/format/dates';
-import { chartAxes } from '@/lib/loadtest-evidence';
+import { chartAxes, RUN_DOWN_DECELERATION_MS2 } from '@/lib/loadtest-evidence';
 import { loadTestView, type LoadTestView, type RunView } from '@/lib/services/load-test-view';
-import { formatLength } from '@/lib/units';
+import { formatLength, formatSpeed, type UnitSystem } from '@/lib/units';
 import type { ClaimEventType } from '@/machines/claim';
 
 /**
@@ -69,7 +69,7 @@ export async function LoadTestPanel({ user, claim, allowed }: { user: AppUser; c
           minPower={chart.minPower}
         />
       ) : null}
-      {chart ? <CurveNote runs={[before, after]} /> : null}
+      {chart ? <CurveNote runs={[before, after]} units={units} /> : null}
 
       {before || after ? <Figures view={view} /> : null}
 
@@ -164,10 +164,10 @@ export async function LoadTestPanel({ user, claim, allowed }: { user: AppUser; c
 }
 
 /** Which samples the curve leaves out, so a reader can square the curve with the peaks. */
-export function CurveNote({ runs, className = '-mt-4' }: { runs: (RunView | null)[]; className?: string }) {
-  const cut = runs.flatMap((r) => (r && r.summary.kind === 'dyno' && r.summary.curve?.samplesLeftOut ? [`${r.phase === 'before' ? 'before' : 'after'}: ${r.summary.curve.samplesLeftOut.toLocaleString('en')} samples after ${r.summary.curve.throughTimeS.toFixed(1)} s`] : []));
+export function CurveNote({ runs, units, className = '-mt-4' }: { runs: (RunView | null)[]; units: UnitSystem; className?: string }) {
+  const cut = runs.flatMap((r) => (r && r.summary.kind === 'dyno' && r.summary.curve?.samplesLeftOut ? [`${r.phase}: ${r.summary.curve.samplesLeftOut.toLocaleString('en')} samples`] : []));
   if (!cut.length) return null;
-  return <p className={`${className} text-xs text-ink-muted`}>Each curve runs to the run’s top speed; the run-down after it is left out ({cut.join('; ')}).</p>;
+  return <p className={`${className} text-xs text-ink-muted`}>The curves leave out the run-down, where the roller slows by more than {formatSpeed(RUN_DOWN_DECELERATION_MS2, units).text} a second ({cut.join('; ')}); peaks and checks use the whole run.</p>;
 }
 
 const phaseName = (r: RunView) => (r.phase === 'before' ? 'Before-test' : 'After-test');

@@ -4,6 +4,8 @@ import {
   parseBatteryCsv,
   parseDynoCsv,
   MIN_SAMPLES,
+  movingAverage,
+  SMOOTHING_WINDOW_S,
   type ColumnMapping,
   type ColumnRole,
   type DynoAnalysis,
@@ -53,15 +55,17 @@ export function analyseUpload(
     const run = imported.run;
     const legalClass = spec.kind === 'dyno' ? spec.legalClass : null;
     const options = { circumferenceM: wheel.metres, legalClass };
-    const metric = analyseDyno(run, { ...options, units: 'metric' });
-    const sweep = sweepOf(run, metric.topSpeed.timeS);
-    const withCurve = (units: UnitSystem, full: DynoAnalysis): DynoAnalysis =>
-      sweep === run ? full : { ...full, bins: analyseDyno(sweep, { ...options, units }).bins };
+    const driven = drivenSamples(run);
+    // Peaks, band and checks over the whole file (the library's); the curve from the driven samples.
+    const withCurve = (units: UnitSystem): DynoAnalysis => {
+      const full = analyseDyno(run, { ...options, units });
+      return driven === run ? full : { ...full, bins: analyseDyno(driven, { ...options, units }).bins };
+    };
     const summary: LoadTestSummary = {
       kind: 'dyno',
-      metric: withCurve('metric', metric),
-      imperial: withCurve('imperial', analyseDyno(run, { ...options, units: 'imperial' })),
-      curve: { throughTimeS: metric.topSpeed.timeS, samplesLeftOut: run.count - sweep.count },
+      metric: withCurve('metric'),
+      imperial: withCurve('imperial'),
+      curve: { samplesLeftOut: run.count - driven.count },
       fileUnits: run.fileUnits,
       circumference: { metres: wheel.metres, source: wheel.source, tyreIso: wheel.tyre?.iso ?? null, notes: wheel.notes },
       source: run.source,
@@ -83,22 +87,37 @@ export function analyseUpload(
 }
 
 /**
- * The run up to and including its top speed. A roller run-down after the sweep carries speed with
- * no drive; left in, it would average zeros into every speed step the sweep passed through.
+ * A roller slowing down faster than this (m/s²) is running down, not being driven: 0.5 km/h per
+ * second. A load sweep accelerates or holds a speed; a run-down after it carries speed with little
+ * or no drive and, left in, would average near-zero power into every speed step it passes through
+ * (common practice, no source: dyno operators read the curve from the sweep, not the run-down).
  */
-function sweepOf(run: DynoRun, topSpeedTimeS: number): DynoRun {
-  let end = run.count;
-  while (end > MIN_SAMPLES && (run.timeS[end - 1] as number) > topSpeedTimeS) end--;
-  if (end === run.count) return run;
-  const cut = (a: Float64Array | null) => (a ? a.subarray(0, end) : null);
+export const RUN_DOWN_DECELERATION_MS2 = 0.5 / 3.6;
+
+/** The samples that make the curve: all but those where the (smoothed) roller speed is falling faster than a run-down. */
+function drivenSamples(run: DynoRun): DynoRun {
+  const n = run.count;
+  const v = movingAverage(run.timeS, run.speedMs, SMOOTHING_WINDOW_S);
+  const keep: number[] = [];
+  let back = 0;
+  for (let i = 0; i < n; i++) {
+    const t = run.timeS[i] as number;
+    // Compare with the sample one smoothing window earlier, so sensor ripple does not count as slowing.
+    while (back < i && (run.timeS[back + 1] as number) <= t - SMOOTHING_WINDOW_S) back++;
+    const dt = t - (run.timeS[back] as number);
+    const slowing = dt > 0 && ((v[i] as number) - (v[back] as number)) / dt < -RUN_DOWN_DECELERATION_MS2;
+    if (!slowing) keep.push(i);
+  }
+  if (keep.length === n || keep.length < MIN_SAMPLES) return run;
+  const pick = (a: Float64Array) => Float64Array.from(keep, (i) => a[i] as number);
   return {
     ...run,
-    count: end,
-    timeS: run.timeS.subarray(0, end),
-    speedMs: run.speedMs.subarray(0, end),
-    wheelTorqueNm: cut(run.wheelTorqueNm),
-    wheelPowerW: cut(run.wheelPowerW),
-    lines: run.lines.subarray(0, end),
+    count: keep.length,
+    timeS: pick(run.timeS),
+    speedMs: pick(run.speedMs),
+    wheelTorqueNm: run.wheelTorqueNm ? pick(run.wheelTorqueNm) : null,
+    wheelPowerW: run.wheelPowerW ? pick(run.wheelPowerW) : null,
+    lines: Int32Array.from(keep, (i) => run.lines[i] as number),
   };
 }
 

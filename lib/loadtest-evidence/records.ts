@@ -37,15 +37,15 @@ export interface CircumferenceUsed {
 
 /**
  * A dyno run's figures in both unit systems, never the raw samples. Peaks, band and checks are the
- * library's over the whole file; `bins` (the curve, per 1 km/h or per 1 mph) cover the sweep up to
- * the top speed, so a coast-down after it does not pull the curve's means down.
+ * library's over the whole file; `bins` (the curve, per 1 km/h or per 1 mph) leave out the run-down
+ * (the roller slowing with no drive), so it does not pull the curve's means down.
  */
 export interface DynoSummary {
   readonly kind: 'dyno';
   readonly metric: DynoAnalysis;
   readonly imperial: DynoAnalysis;
-  /** Where the curve ends: the time of the top speed, and how many samples after it were left out. */
-  readonly curve: { readonly throughTimeS: number; readonly samplesLeftOut: number };
+  /** How many run-down samples the curve leaves out. */
+  readonly curve: { readonly samplesLeftOut: number };
   readonly fileUnits: UnitSystem;
   readonly circumference: CircumferenceUsed;
   readonly source: ImportSource;

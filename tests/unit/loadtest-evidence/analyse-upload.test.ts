@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseDynoCsv } from '@/lib/loadtest';
 import { analyseUpload, runVerdict, type DynoSummary, type LoadTestSpec } from '@/lib/loadtest-evidence';
 import { MPH_MS } from '@/lib/units';
-import { conditions, constantPowerCsv, dynoSpec, fixture } from './support';
+import { conditions, constantPowerCsv, dynoSpec, fixture, R_57_622 } from './support';
 
 const dyno = (input: string | Buffer, spec: LoadTestSpec = dynoSpec(), c = conditions()) => {
   const r = analyseUpload(input, { kind: 'dyno', spec, conditions: c });
@@ -44,7 +44,7 @@ describe('a dyno upload is analysed into a stored summary and a verdict', () => 
     expect(r.sampleCount).toBe(metric.sampleCount);
   });
 
-  it('the curve ends at the top speed, so the run-down does not average zeros into it', () => {
+  it('the curve leaves out the run-down, so it does not average zeros into the sweep', () => {
     // The fixture: a 20 s sweep to 27 km/h at 50 Hz, then 5 s of run-down with no torque (tests/fixtures/loadtest/generate.ts).
     const r = dyno(fixture('dyno-mid-drive-metric.csv'));
     expect(r.summary.curve.samplesLeftOut).toBeGreaterThan(240);
@@ -57,6 +57,32 @@ describe('a dyno upload is analysed into a stored summary and a verdict', () => 
     expect(at20(whole.analysis.bins) / at20(r.summary.metric.bins)).toBeLessThan(0.85);
     // The peaks are the library's, over the whole file.
     expect(r.summary.metric.peakPower).toEqual(whole.analysis.peakPower);
+  });
+
+  it('leaves out every run-down of a log with several sweeps, and keeps a power collapse during a sweep', () => {
+    // Two sweeps 2 → 25 km/h in 10 s at a constant 300 W, each followed by a 3 s run-down at 0 W, at 50 Hz.
+    const lines = ['time_s,speed_kmh,wheel_torque_nm,wheel_power_w'];
+    let t = 0;
+    const row = (kmh: number, w: number) => lines.push(`${(t++ * 0.02).toFixed(2)},${kmh.toFixed(4)},${(w / Math.max(kmh / 3.6 / R_57_622, 1e-9)).toFixed(5)},${w}`);
+    for (let sweep = 0; sweep < 2; sweep++) {
+      for (let i = 0; i < 500; i++) row(2 + (23 * i) / 500, 300);
+      for (let i = 0; i < 150; i++) row(25 - (23 * i) / 150, 0);
+    }
+    const r = dyno(lines.join('\n') + '\n');
+    expect(r.summary.curve.samplesLeftOut).toBeGreaterThan(270);
+    // 2 × 150 run-down samples, give or take the few the 0.2 s moving average smears across each turn-round.
+    expect(r.summary.curve.samplesLeftOut).toBeLessThan(310);
+    for (const b of r.summary.metric.bins.filter((b) => b.from >= 4 && b.from <= 23)) expect(b.power!.mean).toBeGreaterThan(295);
+
+    // A sweep whose power drops to nothing above 15 km/h while the roller keeps accelerating: that is the fault, and it stays in the curve.
+    const fault = ['time_s,speed_kmh,wheel_power_w'];
+    for (let i = 0; i < 1000; i++) {
+      const kmh = 2 + (23 * i) / 1000;
+      fault.push(`${(i * 0.02).toFixed(2)},${kmh.toFixed(4)},${kmh < 15 ? 300 : 0}`);
+    }
+    const f = dyno(fault.join('\n') + '\n');
+    expect(f.summary.curve.samplesLeftOut).toBe(0);
+    expect(f.summary.metric.bins.find((b) => b.from === 20)!.power!.mean).toBe(0);
   });
 
   it('needs the wheel circumference: a tyre size or a measured roll-out, the roll-out winning', () => {

@@ -51,7 +51,7 @@ export default async function LoadTestReportPage({ params }: { params: Promise<{
         <section className="print-avoid-break">
           <h2 className="mb-2">Wheel power and torque against speed</h2>
           <PowerTorqueChart axes={axes} before={chart.before} after={chart.after} legalLimit={chart.legalLimit} legalLabel={legalClass ? `${legalClass.name} limit` : undefined} minPower={chart.minPower} width={720} height={340} />
-          <CurveNote runs={[before, after]} className="mt-1" />
+          <CurveNote runs={[before, after]} units={units} className="mt-1" />
         </section>
       ) : null}
 

@@ -4,6 +4,7 @@ import { POST as completeUploadRoute } from '@/app/api/claims/[id]/uploads/[inte
 import { db } from '@/db/connection';
 import { findClaimForUser } from '@/lib/db/claims';
 import { evidenceSummaryFor, submitClaim } from '@/lib/services/claims';
+import { removeAttachment } from '@/lib/services/evidence';
 import { headObject } from '@/lib/storage/s3';
 import { PSI_PA } from '@/lib/units';
 import { actAs } from '../../support/acting-user';
@@ -106,6 +107,27 @@ describe('a before-test is stored with its analysis', () => {
   });
 });
 
+describe('the stored run follows its file', () => {
+  it('removing a wrong before-test from a draft removes its analysis, and the count drops', async () => {
+    const claim = await draftClaim();
+    await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'run.csv', bytes: dynoCsv() });
+    expect(await beforeTestsOf(claim.id)).toBe(1);
+    const [att] = await attachmentsOf(claim.id, 'load_test_before');
+    await removeAttachment(await signedIn(PEOPLE.kettenblatt), claim.id, att.id);
+    expect(await runsOf(claim.id)).toHaveLength(0);
+    expect(await beforeTestsOf(claim.id)).toBe(0);
+  });
+
+  it('the database refuses a run that does not match its file’s claim and phase', async () => {
+    const claim = await draftClaim();
+    await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'run.csv', bytes: dynoCsv() });
+    const [run] = await runsOf(claim.id);
+    await expect(db()('load_test_runs').where({ id: run.id }).update({ phase: 'after' })).rejects.toThrow(/does not match its attachment/);
+    const other = await draftClaim();
+    await expect(db()('load_test_runs').where({ id: run.id }).update({ claim_id: other.id })).rejects.toThrow(/does not match its attachment/);
+  });
+});
+
 describe('a file that cannot be analysed is refused with the library’s message and nothing is stored', () => {
   const cases: Array<[string, string | Buffer, RegExp]> = [
     ['blank lines only', '\n\n  \n', /empty/i],
@@ -192,11 +214,14 @@ describe('conditions, mapping and refusals', () => {
   });
 
   it('asks which column is what, remembers the answer for the dealer, and applies it next time', async () => {
+    // One column name unique to this run, so no answer saved by an earlier run of the suite applies.
+    const temp = `Motor temp ${randomBytes(3).toString('hex')} [°C]`;
+    const file = () => Buffer.from(fixture('dyno-needs-mapping.csv').toString('utf8').replace('Motor temp [°C]', temp));
     const claim = await draftClaim();
-    const first = await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'bench-export.csv', bytes: fixture('dyno-needs-mapping.csv') });
+    const first = await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'bench-export.csv', bytes: file() });
     expect(first.status).toBe(200);
     expect(first.body).toMatchObject({ status: 'needs-mapping', kind: 'dyno', intentId: first.intentId });
-    expect(first.body.headers).toEqual(['Elapsed (s)', 'Roller speed [km/h]', 'Wheel torque [N·m]', 'Motor temp [°C]']);
+    expect(first.body.headers).toEqual(['Elapsed (s)', 'Roller speed [km/h]', 'Wheel torque [N·m]', temp]);
     expect(first.body.proposedMapping['Roller speed [km/h]']).toEqual({ quantity: 'speed', unit: 'kmh' });
     expect(await runsOf(claim.id)).toHaveLength(0);
     expect(await attachmentsOf(claim.id)).toHaveLength(0);
@@ -204,14 +229,14 @@ describe('conditions, mapping and refusals', () => {
     // A wrong answer (two speed columns) is refused with the columns named, and the file kept.
     const wrong = await recordLoadTest(PEOPLE.kettenblatt, claim.id, {
       intentId: first.intentId, units: 'metric', conditions: { tyreSize: '57-622' },
-      mapping: { 'Elapsed (s)': { quantity: 'time', unit: 's' }, 'Roller speed [km/h]': { quantity: 'speed', unit: 'kmh' }, 'Wheel torque [N·m]': { quantity: 'speed', unit: 'mph' }, 'Motor temp [°C]': { quantity: 'ignore' } },
+      mapping: { 'Elapsed (s)': { quantity: 'time', unit: 's' }, 'Roller speed [km/h]': { quantity: 'speed', unit: 'kmh' }, 'Wheel torque [N·m]': { quantity: 'speed', unit: 'mph' }, [temp]: { quantity: 'ignore' } },
     });
     expect(wrong.status).toBe(422);
     expect(wrong.body.retryable).toBe(true);
     expect(wrong.body.issues[0].message).toMatch(/both hold speed/);
     expect(await db()('upload_intents').where({ id: first.intentId }).first()).toBeDefined();
 
-    const mapping = { ...first.body.proposedMapping, 'Motor temp [°C]': { quantity: 'ignore' } };
+    const mapping = { ...first.body.proposedMapping, [temp]: { quantity: 'ignore' } };
     const answered = await recordLoadTest(PEOPLE.kettenblatt, claim.id, { intentId: first.intentId, units: 'metric', conditions: { tyreSize: '57-622' }, mapping });
     expect(answered.status).toBe(201);
     expect(answered.body.mappingSource).toBe('entered');
@@ -220,13 +245,13 @@ describe('conditions, mapping and refusals', () => {
     expect(saved.map((s) => s.header_signature)).toContain((await runsOf(claim.id))[0].header_signature);
 
     // The same layout again, from a colleague at the same shop: read at once with the saved answer.
-    const again = await addLoadTest(PEOPLE.kettenblattAdmin, claim.id, { name: 'bench-export-2.csv', bytes: fixture('dyno-needs-mapping.csv') });
+    const again = await addLoadTest(PEOPLE.kettenblattAdmin, claim.id, { name: 'bench-export-2.csv', bytes: file() });
     expect(again.status).toBe(201);
     expect(again.body.mappingSource).toBe('saved');
 
     // Another shop has not answered for this layout: it is asked.
     const other = await draftClaim({ dealer: PEOPLE.lanternhill, frameSerial: 'KU25-007812', partNumber: 'TV-DU60' });
-    const asked = await addLoadTest(PEOPLE.lanternhill, other.id, { name: 'bench-export.csv', bytes: fixture('dyno-needs-mapping.csv') });
+    const asked = await addLoadTest(PEOPLE.lanternhill, other.id, { name: 'bench-export.csv', bytes: file() });
     expect(asked.body.status).toBe('needs-mapping');
   });
 

@@ -1,6 +1,5 @@
 import 'server-only';
-import { randomUUID } from 'node:crypto';
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { db } from '@/db/connection';
 import { LOAD_TEST_KINDS } from '@/lib/claims/attachment-rules';
 import { deleteIntent, findIntent, insertAttachment } from '@/lib/db/attachments';

@@ -148,6 +148,26 @@ describe('the after-test gate', () => {
     expect((await claimRow(claim.id)).replacement_step).toBe('to_ship');
   });
 
+  it('a battery claim: the after-discharge is held to the brand’s capacity threshold', async () => {
+    // BP625: 17.4 Ah rated, Torvane's threshold 70 % (demo catalog). Constant-current discharges
+    // integrate in closed form: 4.35 A × 2 h = 8.7 Ah (50 %); 8.7 A × 2 h = 17.4 Ah (100 %).
+    const discharge = (amps: number) => {
+      const lines = ['time_s,voltage_v,current_a'];
+      for (let t = 0; t <= 7200; t += 30) lines.push(`${t},${(41 - (9 * t) / 7200).toFixed(4)},${amps}`);
+      return Buffer.from(lines.join('\n') + '\n');
+    };
+    const claim = await draftClaim({ partNumber: 'TV-BP625', batteryCycles: 420 });
+    const before = await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'before.csv', bytes: discharge(4.35) }, { conditions: { batterySocStartPct: '100' } });
+    expect(before.body).toMatchObject({ status: 'stored', meetsSpec: false });
+    expect(before.body.verdict).toBe('Capacity is 50.0 % of rated, below the 70 % threshold by 20.0 points.');
+    await driveToShipped(claim.id);
+    const after = await addLoadTest(PEOPLE.kettenblatt, claim.id, { name: 'after.csv', bytes: discharge(8.7), kind: 'load_test_after' }, { conditions: { batterySocStartPct: '100' } });
+    expect(after.body).toMatchObject({ phase: 'after', meetsSpec: true });
+    const res = await step(PEOPLE.kettenblatt, claim.id, { type: 'MARK_FITTED', afterTestId: after.body.runId });
+    expect(res.status).toBe(200);
+    expect((await claimRow(claim.id)).replacement_step).toBe('verified');
+  });
+
   it('two fitted steps at once: exactly one goes through', async () => {
     const claim = await shippedClaim();
     const up = await addLoadTest(PEOPLE.kettenblatt, claim.id, passing());

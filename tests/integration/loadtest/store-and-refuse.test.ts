@@ -8,6 +8,7 @@ import { removeAttachment } from '@/lib/services/evidence';
 import { headObject } from '@/lib/storage/s3';
 import { PSI_PA } from '@/lib/units';
 import { actAs } from '../../support/acting-user';
+import { insertAnalysedLoadTest } from '../../support/analysed-load-test';
 import {
   addLoadTest,
   attachPhotos,
@@ -173,6 +174,9 @@ describe('a file that cannot be analysed is refused with the library’s message
       size_bytes: 10, sha256: randomBytes(32).toString('hex'), uploaded_by: claim.user.id,
     });
     expect(await beforeTestsOf(claim.id)).toBe(0);
+    // The helper other tests use for a claim's evidence records the analysis too, and then it counts.
+    await insertAnalysedLoadTest(claim.id, claim.user.id);
+    expect(await beforeTestsOf(claim.id)).toBe(1);
   });
 
   it('the general upload completion does not record a load test without its analysis, and keeps the upload', async () => {

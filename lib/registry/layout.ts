@@ -5,7 +5,7 @@ import { PART_CATEGORIES } from '@/lib/coverage';
  * The names are ours; the same table is printed on the import screen.
  */
 export const REGISTRY_COLUMNS = [
-  { name: 'frame_serial', required: true, example: 'KT25-004187', description: 'The serial stamped on the frame, 3–40 letters, digits, - _ / .' },
+  { name: 'frame_serial', required: true, example: 'KT26-001250', description: 'The serial stamped on the frame, 3–40 letters, digits, - _ / .' },
   { name: 'model_code', required: true, example: 'KST-T', description: 'The code of one of the brand’s bike models (as in the catalog).' },
   { name: 'retail_sale_date', required: true, example: '2025-04-12', description: 'The day the bike was sold to the rider, as YYYY-MM-DD; not in the future.' },
   { name: 'selling_dealer_account', required: false, example: 'TV-DE-0791', description: 'Optional: the selling shop’s account number with the brand.' },

@@ -10,7 +10,7 @@ const HEADER = 'frame_serial,model_code,retail_sale_date,selling_dealer_account,
 
 function upload(url: string, csv: string | Buffer, fields: Record<string, string> = {}, name = 'registry.csv') {
   const form = new FormData();
-  form.set('file', new File([csv], name, { type: 'text/csv' }));
+  form.set('file', new File([typeof csv === 'string' ? csv : new Uint8Array(csv)], name, { type: 'text/csv' }));
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   return new Request(`http://localhost${url}`, { method: 'POST', body: form });
 }

@@ -166,7 +166,9 @@ export const holidayDaySchema = z.object({ day: isoDate });
 export const laborRateSchema = z.object({ accountId: z.uuid('Unknown dealer account.'), laborRate: amount('labor rate') });
 export type LaborRateInput = z.infer<typeof laborRateSchema>;
 
+/** The registry page's search: whatever arrives in the address bar, read without a refusal. */
+const first = (v: unknown) => (Array.isArray(v) ? v[0] : v);
 export const registryQuerySchema = z.object({
-  q: z.string().trim().max(60).optional().transform((v) => v || undefined),
-  page: z.coerce.number().int().min(1).max(10000).catch(1).default(1),
+  q: z.preprocess(first, z.string().optional().catch(undefined)).transform((v) => v?.trim().slice(0, 60) || undefined),
+  page: z.preprocess(first, z.coerce.number().int().min(1).max(10000).catch(1).default(1)),
 });

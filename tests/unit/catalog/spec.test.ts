@@ -1,7 +1,7 @@
 import { unit } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { batteryEnergy, describeSpec, specInputValue, specToSi } from '@/lib/catalog';
-import { modelSchema, partSchema, policySchema } from '@/lib/validation/catalog';
+import { modelSchema, partSchema, policySchema, registryQuerySchema } from '@/lib/validation/catalog';
 
 describe('spec values typed in imperial units are stored in SI at the column precision', () => {
   it('horsepower and pound-force foot convert by NIST SP 811 App. B.9 (1 hp = 745.699 872 W; 1 lbf·ft = 1.355 818 N·m)', () => {
@@ -56,5 +56,14 @@ describe('catalog form schemas', () => {
     const r = policySchema.parse({ category: 'display', coverageMonths: '12', coreReturnDays: '20', coreGraceDays: '0', reviewDays: '4', appealDays: '21', exclusion_crash_damage: 'on', exclusion_zzz: 'on', exclusion_wear_item: 'off' });
     expect(r.exclusions).toEqual(['crash_damage']);
     expect(r.coreGraceDays).toBe(0);
+  });
+});
+
+describe('the registry page’s address bar', () => {
+  it('reads any query without refusing it', () => {
+    expect(registryQuerySchema.parse({})).toEqual({ q: undefined, page: 1 });
+    expect(registryQuerySchema.parse({ q: ['KT25', 'x'], page: ['3', '4'] })).toEqual({ q: 'KT25', page: 3 });
+    expect(registryQuerySchema.parse({ q: '  ', page: '-2' })).toEqual({ q: undefined, page: 1 });
+    expect(registryQuerySchema.parse({ q: 'x'.repeat(200), page: 'abc' })).toEqual({ q: 'x'.repeat(60), page: 1 });
   });
 });

@@ -29,6 +29,7 @@
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
 import http from 'node:http';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -366,7 +367,8 @@ async function main() {
     results.push(b, r);
   }
   const [bareLast, routeLast] = results.slice(-2) as [Result, Result];
-  console.log('\nResult (last round):');
+  // Latency at 20 in flight is mostly queueing for CPU: say how busy the machine was.
+  console.log(`\nResult (last round; ${os.cpus().length} CPUs, load average ${os.loadavg().map((l) => l.toFixed(1)).join(' / ')} over 1 / 5 / 15 min):`);
   console.log(`  route p95 ${routeLast.p95.toFixed(1)} ms (target ≤ 50 ms) — ${routeLast.p95 <= 50 ? 'within' : 'OVER'} target`);
   console.log(`  bare  p95 ${bareLast.p95.toFixed(1)} ms`);
   console.log(`  ratio route / bare = ${(routeLast.p95 / bareLast.p95).toFixed(2)}× (target ≤ 2×) — ${routeLast.p95 <= 2 * bareLast.p95 ? 'within' : 'OVER'} target`);

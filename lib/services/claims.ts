@@ -165,6 +165,11 @@ export async function serialWarnings(user: AppUser, claim: ClaimRecord) {
     { dealerId: user.orgKind === 'dealer' ? user.organisationId : null },
     claim.id,
   );
-  // A dealer may only follow links to its own shop's claims; others are counted, not shown.
-  return open.map((o) => ({ ...o, visible: user.orgKind === 'brand' || o.dealerId === user.organisationId }));
+  // A dealer may only follow links to its own shop's claims; another shop's are counted, and
+  // nothing that identifies them (number, id, shop) leaves this function.
+  return open.map((o) =>
+    user.orgKind === 'brand' || o.dealerId === user.organisationId
+      ? { ...o, visible: true }
+      : { id: null, number: null, stage: o.stage, dealerId: null, visible: false },
+  );
 }

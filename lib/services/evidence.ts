@@ -2,7 +2,7 @@ import 'server-only';
 import { createHash, randomUUID } from 'node:crypto';
 import { db } from '@/db/connection';
 import { ATTACHMENT_LABELS, canAttach, declaredFileProblem, extensionOf, PHOTO_KINDS, ruleFor, type AttachmentKind } from '@/lib/claims/attachment-rules';
-import { deleteIntent, findAttachmentForUser, findIntent, insertAttachment, insertIntent } from '@/lib/db/attachments';
+import { findAttachmentForUser, insertAttachment, insertIntent, takeIntent } from '@/lib/db/attachments';
 import { findClaimForUser, type ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, NotFoundError, ValidationError } from '@/lib/errors';
@@ -61,12 +61,13 @@ export type RecordedAttachment = { id: string; kind: AttachmentKind; fileName: s
 export async function completeUpload(user: AppUser, claimId: string, intentId: string): Promise<RecordedAttachment> {
   const claim = await findClaimForUser(user, claimId);
   if (!claim) throw new NotFoundError('No such claim.');
-  const intent = await findIntent(claim.id, intentId, user.id);
+  // The ticket is used up here, whatever the outcome: a second completion of the same upload
+  // (a double click, a retry racing the first) finds none and cannot touch the stored object.
+  const intent = await takeIntent(claim.id, intentId, user.id);
   if (!intent) throw new NotFoundError('No such upload; start it again.');
   const cleanup: string[] = [intent.storageKey];
   const refuse = async (message: string): Promise<never> => {
     await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
-    await deleteIntent(intent.id);
     throw new ValidationError(message, { file: [message] });
   };
 
@@ -118,14 +119,10 @@ export async function completeUpload(user: AppUser, claimId: string, intentId: s
         contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha, uploadedBy: user.id,
       });
       await logClaimNote(trx, user, locked, 'EVIDENCE_ADDED', { attachmentId: id, kind: intent.kind, fileName: intent.fileName, sha256: storedSha });
-      await deleteIntent(intent.id, trx);
       return { id, kind: intent.kind, fileName: intent.fileName, contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha };
     });
   } catch (err) {
-    if (!(err instanceof ValidationError)) {
-      await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
-      await deleteIntent(intent.id).catch(() => {});
-    }
+    if (!(err instanceof ValidationError)) await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
     throw err;
   }
 }

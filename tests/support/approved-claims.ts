@@ -50,3 +50,19 @@ export async function setStock(brand: 'torvane' | 'wrenfield', partNumber: strin
 export async function onHand(partId: string): Promise<number> {
   return Number((await db()('stock_levels').where({ part_id: partId }).first('on_hand'))?.on_hand ?? 0);
 }
+
+/**
+ * Records an attachment row as a finished upload would (the upload path itself is tested with the
+ * evidence screens); enough for steps that need a photo on the claim.
+ */
+export async function attachRecord(claimId: string, kind: string, uploaderEmail: string): Promise<string> {
+  const user = await db()('users').whereRaw('lower(email) = lower(?)', [uploaderEmail]).first('id');
+  const key = `claims/${claimId}/test-${Date.now()}-${Math.random().toString(36).slice(2)}/photo.jpg`;
+  const [row] = await db()('attachments')
+    .insert({
+      claim_id: claimId, kind, storage_key: key, file_name: `${kind}.jpg`, content_type: 'image/jpeg', size_bytes: 1234,
+      sha256: 'a'.repeat(64), uploaded_by: user.id,
+    })
+    .returning('id');
+  return row.id;
+}

@@ -43,6 +43,8 @@ export type FulfilmentView = {
   /** Classifications for the warehouse's forms (sound ground shipments; a damaged core for the label form). */
   outboundBatteries: StoredBatteryClass[];
   outboundOffers: ServiceOffer[];
+  /** Every service, for a parcel without batteries. */
+  plainOffers: ServiceOffer[];
   returnOffers: { sound: ServiceOffer[]; damaged: ServiceOffer[] } | null;
   returnClasses: { sound: StoredBatteryClass; damaged: StoredBatteryClass } | null;
 };
@@ -128,6 +130,7 @@ export async function loadFulfilmentView(claim: ClaimRecord): Promise<Fulfilment
     coreSteps: coreTrack(coreStep, ctx, summary(returnParcel), clock?.dueDate ?? outbound?.coreDueOn ?? null),
     outboundBatteries: outboundClasses.map(({ line, c }) => storedClass(line.partNumber, line.quantity, c)),
     outboundOffers: serviceOffers(outboundClasses.map(({ c }) => c)),
+    plainOffers: serviceOffers([]),
     returnOffers,
     returnClasses,
   };

@@ -5,7 +5,7 @@ import { carrierName, findService, TRACKING_LABELS } from '@/lib/carrier/carrier
 import type { Attachment } from '@/lib/db/attachments';
 import type { ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
-import { formatDateTime } from '@/lib/format/dates';
+import { formatDateTime, formatDay } from '@/lib/format/dates';
 import { loadFulfilmentView, type ParcelView } from '@/lib/services/fulfilment-view';
 import { CORE_CONDITION_LABELS, INSPECTION_RESULT_LABELS, WAIVER_REASON_LABELS } from '@/machines/claim';
 import { CoreShippedForm } from './core-shipped-form';
@@ -75,7 +75,7 @@ export async function FulfilmentPanel({ claim, user, attachments }: { claim: Cla
             <Notice tone="warning" title="Back-ordered">
               {short.map((a) => (
                 <span key={a.lineId} className="block">
-                  {a.quantity} × <span className="font-mono">{a.partNumber}</span>: {a.expectedOn ? `expected in the warehouse on ${a.expectedOn}` : 'the warehouse will set the expected date'}
+                  {a.quantity} × <span className="font-mono">{a.partNumber}</span>: {a.expectedOn ? `expected in the warehouse on ${formatDay(a.expectedOn)}` : 'the warehouse will set the expected date'}
                 </span>
               ))}
             </Notice>
@@ -110,12 +110,13 @@ export async function FulfilmentPanel({ claim, user, attachments }: { claim: Cla
           <h3 className="text-sm font-bold uppercase tracking-wide text-ink-muted">The failed part (core){view.corePartLabel ? `: ${view.corePartLabel}` : ''}</h3>
           <TrackSteps steps={view.coreSteps} timeZone={tz} testId="core-track" />
 
-          {view.coreStep === 'requested' && !ret ? (
+          {view.coreStep === 'requested' && !ret && isDealer ? (
             <Notice tone="info" title="Keep the failed part">
               {claim.brandName} sends a prepaid return label for it; you will find it here and by e-mail.
               {view.coreIsBattery ? ' Until then store the battery isolated: on a non-combustible surface, away from anything that burns, terminals covered.' : ''}
             </Notice>
           ) : null}
+          {view.coreStep === 'requested' && !ret && !isDealer ? <p className="text-sm text-ink-muted">No return label issued yet.</p> : null}
 
           {view.coreStep === 'requested' && ret ? (
             <div className="space-y-3" data-testid="return-instructions">

@@ -92,7 +92,7 @@ export function ReturnLabelForm({
       {!battery || condition ? <ServicePicker name="return-service" offers={options} value={choice} onChange={setChoice} error={fieldErrors.service?.[0]} /> : null}
 
       {error ? <Notice tone="danger">{error}</Notice> : null}
-      <Button type="submit" disabled={pending || !chosenOffered || (battery !== null && condition === null)}>
+      <Button type="submit" disabled={pending || !chosenOffered || (battery !== null && condition === null) || (condition === 'damaged_or_defective' && !confirmed)}>
         {pending ? 'Booking the label…' : reissue ? 'Issue a new return label (the old one is cancelled)' : 'Issue the return label'}
       </Button>
     </form>

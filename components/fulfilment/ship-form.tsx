@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { CARRIERS, checkTrackingNumber, isCarrierCode } from '@/lib/carrier/carriers';
+import { formatDay } from '@/lib/format/dates';
 import { ServicePicker, type OfferOption } from './service-picker';
 import { useStep } from './use-step';
 
@@ -47,7 +48,7 @@ export function ShipForm({ claimId, version, lines, offers }: { claimId: string;
                 <span>
                   <span className="font-mono font-bold">{l.quantity} × {l.partNumber}</span> {l.name}
                   <span className={`block text-xs ${l.inStock ? 'text-ink-muted' : 'font-bold text-volt-700'}`}>
-                    {l.inStock ? `${l.onHand} on hand` : `Back-ordered: ${l.onHand} on hand${l.expectedOn ? `, more expected ${l.expectedOn}` : ', no date yet'}`}
+                    {l.inStock ? `${l.onHand} on hand` : `Back-ordered: ${l.onHand} on hand${l.expectedOn ? `, more expected ${formatDay(l.expectedOn)}` : ', no date yet'}`}
                   </span>
                 </span>
               </label>

@@ -1,4 +1,5 @@
 import { carrierName, dealerTrackingWord, type TrackingStatus } from '@/lib/carrier/carriers';
+import { formatDay } from '@/lib/format/dates';
 import type { ClaimContext, CoreState, ReplacementState } from '@/machines/claim';
 import { CORE_CONDITION_LABELS, INSPECTION_RESULT_LABELS, WAIVER_REASON_LABELS } from '@/machines/claim';
 
@@ -66,7 +67,7 @@ export function coreTrack(step: CoreState, ctx: ClaimContext, parcel: ParcelSumm
   }
   const label = core.labelRef ? 'Return label ready' : 'Waiting for the return label';
   const steps: Omit<TrackStep, 'state'>[] = [
-    { key: 'requested', label, at: parcel?.createdAt ?? null, detail: dueOn ? `Send it back by ${dueOn}` : core.labelRef ? 'The return clock starts when the replacement is delivered' : null },
+    { key: 'requested', label, at: parcel?.createdAt ?? null, detail: dueOn ? `Send it back by ${formatDay(dueOn)}` : core.labelRef ? 'The return clock starts when the replacement is delivered' : null },
     { key: 'in_transit', label: 'On its way back', at: core.shippedAt, detail: core.carrier ? `${carrierName(core.carrier)} ${core.trackingNumber ?? ''}`.trim() : null },
     { key: 'received', label: 'Received at the warehouse', at: core.receivedAt, detail: core.condition ? CORE_CONDITION_LABELS[core.condition] : null },
     { key: 'inspected', label: 'Inspected', at: core.inspection?.at ?? null, detail: core.inspection ? INSPECTION_RESULT_LABELS[core.inspection.result] : null },

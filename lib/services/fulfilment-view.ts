@@ -2,6 +2,7 @@ import 'server-only';
 import type { ClockResult } from '@/lib/calendar';
 import { brandHolidays, findPart, findPolicy, type PartCategory } from '@/lib/db/catalog';
 import type { ClaimRecord } from '@/lib/db/claims';
+import { formatDay } from '@/lib/format/dates';
 import { organisationAddress } from '@/lib/db/fulfilment';
 import { liveShipments, shipmentEvents, type Shipment, type ShipmentEvent } from '@/lib/db/shipments';
 import { stockLevelsFor } from '@/lib/db/stock';
@@ -79,7 +80,7 @@ export async function loadFulfilmentView(claim: ClaimRecord): Promise<Fulfilment
   const availability = replacementStep === 'to_ship' ? lineAvailability(toShip, stock) : [];
   const short = availability.filter((a) => !a.inStock);
   const backordered = short.length
-    ? `Back-ordered: ${short.map((a) => `${a.partNumber}${a.expectedOn ? `, expected ${a.expectedOn}` : ', date to follow'}`).join('; ')}`
+    ? `Back-ordered: ${short.map((a) => `${a.partNumber}${a.expectedOn ? `, expected ${formatDay(a.expectedOn)}` : ', date to follow'}`).join('; ')}`
     : null;
 
   const part = await corePart(claim);

@@ -64,7 +64,7 @@ describe('the packing slip, parsed back', () => {
       }),
       { numRuns: 12 },
     );
-  });
+  }, 30_000);
 });
 
 describe('the test’s own Code 128 reader (symbol table typed in from memory of ISO/IEC 15417)', () => {

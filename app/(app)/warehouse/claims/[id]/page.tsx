@@ -106,12 +106,17 @@ export default async function WarehouseClaimPage({ params }: { params: Promise<{
             ) : null}
 
             {view.coreStep === 'requested' || view.coreStep === 'in_transit' ? (
-              <section className="card space-y-4 p-5" data-testid="receive-section">
-                <h2>Receive the core</h2>
-                {ret?.batteryCondition === 'damaged_or_defective' ? (
-                  <Notice tone="danger" title="Declared damaged or defective">Unpack it only in the battery area, on a non-combustible surface, with the fire-safe container at hand.</Notice>
-                ) : null}
-                <ReceiveForm claimId={claim.id} version={claim.version} battery={view.coreIsBattery} />
+              <section className="card p-5" data-testid="receive-section">
+                {/* Before the dealer marks it shipped the core may still turn up at the dock: receiving stays possible, folded away. */}
+                <details open={view.coreStep === 'in_transit' || ret?.deliveredAt != null} className="space-y-4">
+                  <summary className="cursor-pointer text-lg font-bold">Receive the core{view.coreStep === 'requested' ? ' (arrived before it was marked shipped?)' : ''}</summary>
+                  <div className="mt-4 space-y-4">
+                    {ret?.batteryCondition === 'damaged_or_defective' ? (
+                      <Notice tone="danger" title="Declared damaged or defective">Unpack it only in the battery area, on a non-combustible surface, with the fire-safe container at hand.</Notice>
+                    ) : null}
+                    <ReceiveForm claimId={claim.id} version={claim.version} battery={view.coreIsBattery} />
+                  </div>
+                </details>
               </section>
             ) : null}
 

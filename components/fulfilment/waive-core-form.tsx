@@ -9,7 +9,9 @@ import { useStep } from './use-step';
 export function WaiveCoreForm({ claimId, version, proofs }: { claimId: string; version: number; proofs: { id: string; fileName: string }[] }) {
   const { send, pending, error, fieldErrors } = useStep(claimId);
   const [reason, setReason] = useState('');
-  const [proof, setProof] = useState(proofs[0]?.id ?? '');
+  const [picked, setProof] = useState('');
+  // A proof uploaded after the form appeared arrives through a refresh: default to the newest one.
+  const proof = proofs.some((p) => p.id === picked) ? picked : (proofs.at(-1)?.id ?? '');
 
   return (
     <form

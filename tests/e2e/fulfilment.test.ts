@@ -17,6 +17,7 @@ let browser: Browser;
 let dir: string;
 let claim: { id: string; number: string; rmaNumber: string | null };
 let backordered: { id: string; number: string; rmaNumber: string | null };
+let recycled: { id: string; number: string; rmaNumber: string | null };
 
 beforeAll(async () => {
   browser = await launch();
@@ -29,6 +30,8 @@ beforeAll(async () => {
   });
   await setStock('torvane', 'TV-DU85', 0, '2027-02-01');
   backordered = await approvedClaim({ failedPart: 'TV-DU85', dealer: 'tidewheel', filedBy: DEALER });
+  recycled = await approvedClaim({ failedPart: 'TV-BP500', dealer: 'tidewheel', filedBy: DEALER });
+  fs.writeFileSync(path.join(dir, 'recycler-receipt.jpg'), await labelPhoto('Recycling receipt BP500'));
 });
 
 afterAll(async () => {
@@ -189,5 +192,23 @@ describe('fulfilment: a back-ordered part', () => {
     await page.goto(`/claims/${backordered.id}`);
     await page.getByTestId('fulfilment').getByText(/expected in the warehouse on 1 Feb 2027/).waitFor();
     await screenshot(page, 'fulfilment-dealer-backordered');
+  });
+});
+
+describe('fulfilment: a rep waives the core return', () => {
+  it('with a photo of the local recycling as proof; the core track ends there', async () => {
+    const { page } = await newPage(browser);
+    await signIn(page, 'priya.nair@torvane.test');
+    await page.goto(`/claims/${recycled.id}`);
+    await page.getByText('Waive the return (local recycling or scrapping)').click();
+    const waive = page.getByTestId('waive-form');
+    expect(await waive.getByRole('button', { name: 'Waive the core return' }).isDisabled()).toBe(true);
+    await page.getByTestId('dropzone-core_disposal_proof').locator('input[type=file]').setInputFiles(path.join(dir, 'recycler-receipt.jpg'));
+    await expect.poll(() => waive.locator('option').count(), { timeout: 30_000 }).toBe(1);
+    await waive.getByRole('radio', { name: /Recycled locally/ }).check();
+    await screenshot(page, 'fulfilment-rep-waive');
+    await waive.getByRole('button', { name: 'Waive the core return' }).click();
+    await page.getByTestId('core-track').locator('[data-step="waived"]').waitFor();
+    await page.getByText('The core stays with the shop').waitFor();
   });
 });

@@ -38,7 +38,7 @@ async function nextSequence(trx: Knex, brandId: string, kind: 'claim' | 'rma', y
   return rows[0].last_value;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- knex rows are untyped here
+// knex rows are untyped here.
 type Row = Record<string, any>;
 const one = async (p: Promise<Row | undefined>, what: string): Promise<Row> => {
   const v = await p;

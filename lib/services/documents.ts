@@ -1,5 +1,7 @@
 import 'server-only';
+import { localDate } from '@/lib/calendar';
 import { CARRIERS, carrierName, findService, isCarrierCode } from '@/lib/carrier';
+import { findPart } from '@/lib/db/catalog';
 import { findClaimForUser } from '@/lib/db/claims';
 import { organisationAddress, type OrgAddress } from '@/lib/db/fulfilment';
 import { findShipmentForUser, liveShipment } from '@/lib/db/shipments';
@@ -8,10 +10,8 @@ import { renderPackingSlip, type SlipAddress } from '@/lib/documents/packing-sli
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/errors';
 import { formatDateTime, formatDay } from '@/lib/format/dates';
 import { classifyPart, linesFromDealerStock, linesToShip, storedClass, type StoredBatteryClass } from '@/lib/fulfilment';
-import { findPart } from '@/lib/db/catalog';
 import { corePart, partLinesOf } from '@/lib/services/fulfilment';
 import { getObjectBytes } from '@/lib/storage/s3';
-import { localDate } from '@/lib/calendar';
 
 const address = (a: OrgAddress): SlipAddress => ({ name: a.name, line: a.line, city: a.city, postcode: a.postcode, country: a.country });
 
@@ -30,7 +30,7 @@ export async function packingSlipFor(user: AppUser, claimId: string): Promise<{ 
   if (!brand || !dealer) throw new Error(`claim ${claim.id}: address missing`);
   const lines = partLinesOf(claim);
   const toShip = outbound ? outbound.lines : linesToShip(lines);
-  let batteries: StoredBatteryClass[] = outbound?.dangerousGoods ?? [];
+  const batteries: StoredBatteryClass[] = outbound?.dangerousGoods ? [...outbound.dangerousGoods] : [];
   if (!outbound) {
     for (const l of toShip) {
       const p = await findPart(claim.brandId, l.partId);
@@ -38,7 +38,6 @@ export async function packingSlipFor(user: AppUser, claimId: string): Promise<{ 
       if (c) batteries.push(storedClass(l.partNumber, l.quantity, c));
     }
   }
-  batteries = batteries.filter(Boolean);
   const core = await corePart(claim);
   const service = outbound ? findService(outbound.carrier, outbound.service) : null;
 

@@ -44,7 +44,7 @@ import {
   shipSchema,
   waiveCoreSchema,
 } from '@/lib/validation/fulfilment';
-import { describeState, EVENT_RULES, INSPECTION_RESULT_LABELS, stepClaim, WAIVER_REASON_LABELS, CORE_CONDITION_LABELS, type ClaimEventType } from '@/machines/claim';
+import { CORE_CONDITION_LABELS, describeState, EVENT_RULES, INSPECTION_RESULT_LABELS, stepClaim, WAIVER_REASON_LABELS, type ClaimEventType } from '@/machines/claim';
 
 export type FulfilmentOutcome = StepOutcome & { shipmentId?: string };
 

@@ -30,6 +30,8 @@ export const envSchema = z.object({
 
   CARRIER_URL: z.url().default('http://127.0.0.1:4600'),
   CARRIER_API_KEY: z.string().default('local-carrier-key'),
+  /** How often the worker asks the carrier about parcels on their way. */
+  CARRIER_POLL_SECONDS: z.coerce.number().int().min(1).max(86400).default(15),
 });
 
 export type Env = z.infer<typeof envSchema>;

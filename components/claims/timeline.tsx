@@ -2,7 +2,8 @@ import { ROLE_LABELS, isRole } from '@/lib/auth/roles';
 import { ATTACHMENT_LABELS, type AttachmentKind } from '@/lib/claims/attachment-rules';
 import type { ClaimEventRow } from '@/lib/db/claims';
 import { formatDateTime } from '@/lib/format/dates';
-import { describeState, EVENT_LABELS, isClaimEventType } from '@/machines/claim';
+import { carrierName } from '@/lib/carrier/carriers';
+import { CORE_CONDITION_LABELS, describeState, EVENT_LABELS, INSPECTION_RESULT_LABELS, isClaimEventType, WAIVER_REASON_LABELS } from '@/machines/claim';
 
 function wording(e: ClaimEventRow): string {
   if (isClaimEventType(e.event)) return EVENT_LABELS[e.event].done;
@@ -15,9 +16,26 @@ function wording(e: ClaimEventRow): string {
       return `Removed ${String(e.payload.fileName ?? 'a file')}`;
     case 'MESSAGE':
       return 'Message';
+    case 'REPLACEMENT_DELIVERED':
+      return 'Replacement delivered by the carrier';
+    case 'CORE_PARCEL_DELIVERED':
+      return 'Core parcel delivered to the warehouse';
     default:
       return e.event.replace(/_/g, ' ').toLowerCase();
   }
+}
+
+/** What a shipping or core step recorded: carrier and tracking, condition, result and notes. */
+function fulfilmentDetail(e: ClaimEventRow): string | null {
+  const p = e.payload;
+  const parts: string[] = [];
+  if (typeof p.carrier === 'string' && typeof p.trackingNumber === 'string') parts.push(`${carrierName(p.carrier)} ${p.trackingNumber}`);
+  if (e.event === 'ISSUE_RETURN_LABEL' && typeof p.labelRef === 'string') parts.push(`label ${p.labelRef}${p.batteryCondition === 'damaged_or_defective' ? ', damaged battery, ground only' : ''}`);
+  if (typeof p.condition === 'string' && p.condition in CORE_CONDITION_LABELS) parts.push(CORE_CONDITION_LABELS[p.condition as keyof typeof CORE_CONDITION_LABELS]);
+  if (typeof p.result === 'string' && p.result in INSPECTION_RESULT_LABELS) parts.push(INSPECTION_RESULT_LABELS[p.result as keyof typeof INSPECTION_RESULT_LABELS]);
+  if (typeof p.reason === 'string' && p.reason in WAIVER_REASON_LABELS) parts.push(WAIVER_REASON_LABELS[p.reason as keyof typeof WAIVER_REASON_LABELS]);
+  if (typeof p.notes === 'string' && p.notes) parts.push(`“${p.notes}”`);
+  return parts.length ? parts.join(' · ') : null;
 }
 
 /** The claim's append-only log, oldest first: who, when, and what changed. */
@@ -33,6 +51,7 @@ export function Timeline({ events, timeZone }: { events: ClaimEventRow[]; timeZo
             {changed ? <p className="text-sm text-charge-700">Now: {describeState(e.toState).label}</p> : null}
             {typeof e.payload.message === 'string' && e.payload.message ? <p className="mt-1 whitespace-pre-wrap rounded-md bg-paper-sunk px-3 py-2 text-sm">{e.payload.message}</p> : null}
             {typeof e.payload.note === 'string' && e.payload.note ? <p className="mt-1 text-sm text-ink-soft">“{e.payload.note}”</p> : null}
+            {fulfilmentDetail(e) ? <p className="mt-1 text-sm text-ink-soft">{fulfilmentDetail(e)}</p> : null}
             <p className="text-xs text-ink-muted">
               {e.actorName ?? 'Loadproof'}
               {isRole(e.actorRole) ? ` · ${ROLE_LABELS[e.actorRole]}` : ''} · {formatDateTime(e.createdAt, timeZone)}

@@ -79,7 +79,10 @@ export function navFor(role: Role): NavItem[] {
     case 'brand_rep':
       return [{ href: '/review', label: 'Review queue' }];
     case 'warehouse':
-      return [{ href: '/warehouse', label: 'Shipping & cores' }];
+      return [
+        { href: '/warehouse', label: 'Shipping & cores' },
+        { href: '/warehouse/stock', label: 'Stock' },
+      ];
     case 'accountant':
       return [{ href: '/accounts', label: 'Credits' }];
     case 'brand_admin':

@@ -4,6 +4,7 @@ import type { AppUser } from '@/lib/db/users';
 import { ValidationError } from '@/lib/errors';
 import type { StepOutcome } from '@/lib/services/claim-steps';
 import { submitClaim, withdrawClaim } from '@/lib/services/claims';
+import { inspectCore, issueReturnLabel, markCoreShipped, receiveCore, shipReplacement, waiveCore } from '@/lib/services/fulfilment';
 import { CLAIM_EVENT_TYPES, type ClaimEventType } from '@/machines/claim';
 
 export const stepRequestSchema = z.looseObject({
@@ -22,6 +23,12 @@ const note = z.object({ note: z.string().trim().max(1000).optional() });
 export const stepHandlers: Partial<Record<ClaimEventType, Handler>> = {
   SUBMIT: (user, id, _body, version) => submitClaim(user, id, version),
   WITHDRAW: (user, id, body, version) => withdrawClaim(user, id, note.parse(body).note, version),
+  SHIP: (user, id, body) => shipReplacement(user, id, body),
+  ISSUE_RETURN_LABEL: (user, id, body) => issueReturnLabel(user, id, body),
+  CORE_SHIPPED: (user, id, body) => markCoreShipped(user, id, body),
+  CORE_RECEIVED: (user, id, body) => receiveCore(user, id, body),
+  INSPECT: (user, id, body) => inspectCore(user, id, body),
+  WAIVE_CORE: (user, id, body) => waiveCore(user, id, body),
 };
 
 export async function runStepRequest(user: AppUser, claimId: string, body: unknown): Promise<StepOutcome> {

@@ -11,6 +11,7 @@ import { StepButton } from '@/components/claims/step-button';
 import { Timeline } from '@/components/claims/timeline';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
+import { FulfilmentPanel } from '@/components/fulfilment/fulfilment-panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { requireUser } from '@/lib/auth/session';
@@ -83,6 +84,8 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
       ) : null}
 
       {isDealer && draft ? <DraftChecklist claimId={claim.id} version={claim.version} missing={readiness.missing} /> : null}
+
+      <FulfilmentPanel claim={claim} user={user} attachments={attachments} />
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="space-y-6">

@@ -1,7 +1,12 @@
 import 'server-only';
 import { drainOutbox } from '@/lib/jobs/outbox';
+import { remindReviewDeadlines } from '@/lib/jobs/review-deadlines';
 
 export type Job = { name: string; everyMs: number; run: () => Promise<unknown> };
 
 // Background work the worker process runs on a clock. Add a job here to have it run.
-export const jobs: Job[] = [{ name: 'outbox', everyMs: 2_000, run: drainOutbox }];
+export const jobs: Job[] = [
+  { name: 'outbox', everyMs: 2_000, run: drainOutbox },
+  // Review deadlines near or passed: once per claim, threshold and deadline.
+  { name: 'review-deadlines', everyMs: 5 * 60_000, run: () => remindReviewDeadlines() },
+];

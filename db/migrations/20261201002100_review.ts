@@ -1,0 +1,41 @@
+import type { Knex } from 'knex';
+
+export async function up(knex: Knex): Promise<void> {
+  // When the running review clock started: the submission, or the appeal that reopened it.
+  await knex.schema.alterTable('claims', (t) => {
+    t.timestamp('review_started_at', { useTz: true });
+  });
+  await knex.raw(`UPDATE claims SET review_started_at = submitted_at WHERE submitted_at IS NOT NULL`);
+  await knex.raw(`ALTER TABLE claims ADD CONSTRAINT claims_review_started CHECK (review_started_at IS NULL OR submitted_at IS NOT NULL)`);
+
+  // The review queue filtered by dealer or part category, oldest deadline first.
+  await knex.raw(`CREATE INDEX claims_brand_dealer_stage_due ON claims (brand_id, dealer_id, stage, review_due_on, id)`);
+  await knex.raw(`CREATE INDEX claims_brand_category_stage_due ON claims (brand_id, part_category, stage, review_due_on, id)`);
+
+  // One reminder per claim, threshold and deadline: a moved deadline may be reminded again,
+  // the same one never twice (the insert is the guard, so two workers cannot both send it).
+  await knex.schema.createTable('review_deadline_alerts', (t) => {
+    t.uuid('claim_id').notNullable().references('id').inTable('claims').onDelete('CASCADE');
+    t.text('threshold').notNullable();
+    t.date('due_on').notNullable();
+    t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    t.primary(['claim_id', 'threshold', 'due_on']);
+  });
+  await knex.raw(`ALTER TABLE review_deadline_alerts ADD CONSTRAINT review_deadline_alerts_threshold CHECK (threshold IN ('due_soon', 'overdue'))`);
+
+  // A message sent twice (a double click, a retried request) is one message.
+  await knex.raw(`
+    CREATE UNIQUE INDEX claim_events_message_key ON claim_events (claim_id, (payload->>'clientKey'))
+    WHERE event = 'MESSAGE' AND payload->>'clientKey' IS NOT NULL`);
+}
+
+export async function down(knex: Knex): Promise<void> {
+  await knex.raw('DROP INDEX IF EXISTS claim_events_message_key');
+  await knex.schema.dropTableIfExists('review_deadline_alerts');
+  await knex.raw('DROP INDEX IF EXISTS claims_brand_category_stage_due');
+  await knex.raw('DROP INDEX IF EXISTS claims_brand_dealer_stage_due');
+  await knex.raw('ALTER TABLE claims DROP CONSTRAINT IF EXISTS claims_review_started');
+  await knex.schema.alterTable('claims', (t) => {
+    t.dropColumn('review_started_at');
+  });
+}

@@ -15,17 +15,16 @@ export async function deliverOutboxBatch(limit = 100): Promise<{ sent: number; f
       transport.sendMail({ from, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, messageId: m.messageId }),
     ),
   );
-  const sent: number[] = [];
+  const sent = batch.filter((_, i) => results[i]!.status === 'fulfilled').map((m) => m.id);
+  // What went out is recorded first: a failure while recording the others must not leave a sent
+  // mail leased, to be sent again when its lease runs out.
+  await markSent(sent);
   let failed = 0;
   for (const [i, r] of results.entries()) {
-    const m = batch[i]!;
-    if (r.status === 'fulfilled') sent.push(m.id);
-    else {
-      failed++;
-      await markFailed(m.id, String(r.reason?.message ?? r.reason), retryDelaySeconds(m.attempts));
-    }
+    if (r.status === 'fulfilled') continue;
+    failed++;
+    await markFailed(batch[i]!.id, String(r.reason?.message ?? r.reason), retryDelaySeconds(batch[i]!.attempts));
   }
-  await markSent(sent);
   return { sent: sent.length, failed };
 }
 

@@ -18,6 +18,9 @@ export function mailTransport(): Transporter {
     ignoreTLS: e.LOADPROOF_LOCAL,
     connectionTimeout: 5_000,
     greetingTimeout: 5_000,
+    // Well inside the outbox lease (120 s): a send that hangs fails and is retried, and can never
+    // still be running when its row is leased again.
+    socketTimeout: 30_000,
   });
   return transport;
 }

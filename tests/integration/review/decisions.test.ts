@@ -137,7 +137,7 @@ describe('approving', () => {
     ['a line left out', (b) => void b.labor.pop(), 'labor', /Labor line l2 \(LT-BA\) has no hours/],
     ['nothing approved', (b) => {
       b.parts[0]!.quantity = 0;
-      b.labor.forEach((l) => (l.hours = '0'));
+      b.labor.forEach((l: { hours: string }) => (l.hours = '0'));
       b.freight = '0';
     }, '_form', /deny the claim instead/],
   ];

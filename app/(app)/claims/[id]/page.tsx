@@ -11,6 +11,9 @@ import { StepButton } from '@/components/claims/step-button';
 import { Timeline } from '@/components/claims/timeline';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
+import { DealerReview } from '@/components/review/dealer-review';
+import { MessageThread } from '@/components/review/message-thread';
+import { RepReview } from '@/components/review/rep-review';
 import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { requireUser } from '@/lib/auth/session';
@@ -83,6 +86,8 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
       ) : null}
 
       {isDealer && draft ? <DraftChecklist claimId={claim.id} version={claim.version} missing={readiness.missing} /> : null}
+      {isDealer ? <DealerReview user={user} view={view} /> : null}
+      {user.role === 'brand_rep' ? <RepReview user={user} view={view} /> : null}
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="space-y-6">
@@ -138,6 +143,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
               ) : null}
             </dl>
           </section>
+          <MessageThread user={user} view={view} />
           <section className="card p-5">
             <h2 className="mb-4">Timeline</h2>
             <Timeline events={events} timeZone={user.timeZone} />

@@ -22,7 +22,7 @@ const VIEWS = [
   { value: 'all', label: 'All' },
 ];
 
-const SORT_KEYS: Record<string, string> = { number: 'number', dealerName: 'dealer', submittedAt: 'age', clock: 'deadline', updatedAt: 'updated' };
+const SORT_KEYS: Record<string, string> = { number: 'number', submittedAt: 'age', clock: 'deadline' };
 
 type Option = { value: string; label: string };
 
@@ -129,7 +129,7 @@ export function ReviewQueueTable({ dealers, categories }: { dealers: Option[]; c
           );
         },
       }),
-      col.accessor('dealerName', { header: 'Dealer' }),
+      col.accessor('dealerName', { header: 'Dealer', enableSorting: false }),
       col.accessor('partNumber', {
         header: 'Part',
         enableSorting: false,

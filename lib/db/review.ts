@@ -81,7 +81,7 @@ export type ReviewQueueFilters = {
   q?: string;
 };
 
-export type ReviewQueueSort = 'deadline' | 'age' | 'number' | 'dealer' | 'updated';
+export type ReviewQueueSort = 'deadline' | 'age' | 'number' | 'updated';
 
 export type ReviewQueueRow = {
   id: string;
@@ -109,14 +109,14 @@ const SORT_COLUMNS: Record<ReviewQueueSort, string> = {
   deadline: 'c.review_due_on',
   age: 'c.submitted_at',
   number: 'c.number',
-  dealer: 'd.name',
   updated: 'c.updated_at',
 };
 
 /**
- * One page of the claims against the rep's brand, filtered and sorted in SQL. Served by
- * claims_brand_stage_due (brand_id, stage, review_due_on, id) and, with a dealer or a part
- * category, claims_brand_dealer_stage_due / claims_brand_category_stage_due.
+ * One page of the claims against the rep's brand, filtered and sorted in SQL. The open claims are
+ * served by claims_review_open_due (brand_id, review_due_on, id, carrying the filter columns, so a
+ * filtered count reads the index only) and claims_review_open_age (by submission); decided ones
+ * by claims_brand_stage_due and claims_brand_updated.
  */
 export async function listReviewQueue(
   user: AppUser,
@@ -159,7 +159,9 @@ export async function listReviewQueue(
       'c.assigned_rep_id as assignedRepId', 'u.name as assignedRepName', db().raw(`c.context->>'deniedByRepId' as "deniedByRepId"`),
       db().raw(`coalesce((c.context->>'appealsUsed')::int, 0) as "appealsUsed"`), 'c.updated_at as updatedAt',
     )
-    .orderBy([{ column: SORT_COLUMNS[sort.by], order: sort.dir, nulls: 'last' }, { column: 'c.id', order: sort.dir }])
+    // Claims without a running clock go last by deadline; the other sort columns are never null, and
+    // PostgreSQL's default null order lets their indexes be read in either direction.
+    .orderBy([{ column: SORT_COLUMNS[sort.by], order: sort.dir, ...(sort.by === 'deadline' ? { nulls: 'last' as const } : {}) }, { column: 'c.id', order: sort.dir }])
     .limit(page.pageSize)
     .offset((page.page - 1) * page.pageSize);
   const [countRow, rows] = await Promise.all([count, listed]);

@@ -1,13 +1,32 @@
 import 'server-only';
 import { addBusinessDays, DEFAULT_DUE_SOON_WITHIN, localDate, type ClockStatus } from '@/lib/calendar';
 import { listPolicies } from '@/lib/db/catalog';
-import { brandCalendar, clockEventsFor, listReviewQueue, otherActiveReps, type ReviewQueueFilters, type ReviewQueueRow } from '@/lib/db/review';
+import { brandCalendar, clockEventsFor, listReviewQueue, otherActiveReps, type BrandCalendarRow, type ReviewQueueFilters, type ReviewQueueRow } from '@/lib/db/review';
 import type { AppUser } from '@/lib/db/users';
 import { ForbiddenError } from '@/lib/errors';
 import { reviewDeadline, reviewRuleText } from '@/lib/review';
 import { AGE_BUCKETS, QUEUE_VIEWS, type ReviewQueueQuery } from '@/lib/validation/review';
 
 const CLOCK_STAGES = new Set(['submitted', 'in_review', 'waiting_on_dealer', 'appealed']);
+
+/**
+ * The brand's time zone, holidays and review days, kept for a minute per process: the queue is
+ * read far more often than a brand edits its calendar. Steps and reminders read them fresh.
+ */
+const SETTINGS_TTL_MS = 60_000;
+const settingsCache = new Map<string, { at: number; value: Promise<{ cal: BrandCalendarRow; reviewDays: Map<string, number> }> }>();
+
+function brandSettings(brandId: string, now: Date) {
+  const hit = settingsCache.get(brandId);
+  if (hit && now.getTime() - hit.at < SETTINGS_TTL_MS) return hit.value;
+  const value = Promise.all([brandCalendar(brandId), listPolicies(brandId)]).then(([cal, policies]) => ({
+    cal,
+    reviewDays: new Map(policies.map((p) => [p.category as string, p.reviewDays])),
+  }));
+  value.catch(() => settingsCache.delete(brandId));
+  settingsCache.set(brandId, { at: now.getTime(), value });
+  return value;
+}
 
 export type QueueClock = { dueDate: string; businessDaysLeft: number; status: ClockStatus; isPaused: boolean; summary: string };
 export type ReviewQueueItem = ReviewQueueRow & { clock: QueueClock | null; canTake: boolean; canRelease: boolean };
@@ -21,7 +40,7 @@ export type ReviewQueuePage = { rows: ReviewQueueItem[]; total: number; page: nu
 export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = new Date()): Promise<ReviewQueuePage> {
   if (user.role !== 'brand_rep') throw new ForbiddenError('Only a brand rep has a review queue.');
   const brandId = user.organisationId;
-  const [cal, policies, others] = await Promise.all([brandCalendar(brandId), listPolicies(brandId), otherActiveReps(brandId, user.id)]);
+  const { cal, reviewDays } = await brandSettings(brandId, now);
   const calendar = { holidays: cal.holidays };
   const today = localDate(now.toISOString(), cal.timeZone);
   const dueSoonUntil = addBusinessDays(today, DEFAULT_DUE_SOON_WITHIN, calendar);
@@ -35,10 +54,16 @@ export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = 
   if (query.assigned === 'me') filters.assigned = { kind: 'me', userId: user.id };
   if (query.assigned === 'nobody') filters.assigned = { kind: 'nobody' };
 
-  const { rows, total } = await listReviewQueue(user, filters, { by: query.sort, dir: query.dir }, { page: query.page, pageSize: query.pageSize });
+  // Decided claims have no deadline: "by deadline" lists them latest change first.
+  const sort = query.sort === 'deadline' && query.view === 'decided' ? { by: 'updated' as const, dir: 'desc' as const } : { by: query.sort, dir: query.dir };
+  const { rows, total } = await listReviewQueue(user, filters, sort, { page: query.page, pageSize: query.pageSize });
   const clocked = rows.filter((r) => CLOCK_STAGES.has(r.stage) && r.reviewStartedAt);
-  const events = await clockEventsFor(clocked.map((r) => r.id));
-  const reviewDays = new Map(policies.map((p) => [p.category as string, p.reviewDays]));
+  // Only an appeal this rep denied needs to know whether another rep could take it.
+  const deniedByMe = rows.some((r) => r.stage === 'appealed' && r.deniedByRepId === user.id);
+  const [events, others] = await Promise.all([
+    clockEventsFor(clocked.map((r) => r.id)),
+    deniedByMe ? otherActiveReps(brandId, user.id) : Promise.resolve([]),
+  ]);
   const nowIso = now.toISOString();
 
   const items = rows.map((r): ReviewQueueItem => {
@@ -51,11 +76,10 @@ export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = 
       });
       clock = { dueDate: c.dueDate, businessDaysLeft: c.businessDaysLeft, status: c.status, isPaused: c.isPaused, summary: c.summary };
     }
-    const deniedByMe = r.appealsUsed > 0 && r.deniedByRepId === user.id;
     return {
       ...r,
       clock,
-      canTake: (r.stage === 'submitted' || r.stage === 'appealed') && !(deniedByMe && others.length > 0),
+      canTake: (r.stage === 'submitted' || r.stage === 'appealed') && !(r.stage === 'appealed' && r.deniedByRepId === user.id && others.length > 0),
       canRelease: r.stage === 'in_review' && r.assignedRepId === user.id,
     };
   });

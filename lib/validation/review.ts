@@ -80,7 +80,7 @@ export type AgeBucket = keyof typeof AGE_BUCKETS;
 export const reviewQueueQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
-  sort: z.enum(['deadline', 'age', 'number', 'dealer', 'updated']).default('deadline'),
+  sort: z.enum(['deadline', 'age', 'number', 'updated']).default('deadline'),
   dir: z.enum(['asc', 'desc']).default('asc'),
   view: z.enum(Object.keys(QUEUE_VIEWS) as [QueueView, ...QueueView[]]).default('open'),
   assigned: z.enum(['me', 'nobody']).optional(),

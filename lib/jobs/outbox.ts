@@ -4,8 +4,8 @@ import { retryDelaySeconds } from '@/lib/mail/backoff';
 import { mailTransport } from '@/lib/mail/transport';
 import { env } from '@/lib/env';
 
-/** Sends one batch of due mail; returns how many went out and how many failed. */
-export async function deliverOutboxBatch(limit = 100): Promise<{ sent: number; failed: number }> {
+/** Sends one batch of due mail (200 at most: a batch ends when its slowest mail is sent); returns how many went out and how many failed. */
+export async function deliverOutboxBatch(limit = 200): Promise<{ sent: number; failed: number }> {
   const batch = await leaseDueMail(limit);
   if (!batch.length) return { sent: 0, failed: 0 };
   const from = env().MAIL_FROM;

@@ -118,6 +118,20 @@ async function main() {
     // Warm-up: compile routes, fill the pools and caches.
     for (let i = 0; i < 60; i++) await get(names[i % names.length]!);
 
+    // The floor on this machine right now: next-auth's own session route (cookie decoded, no query), same load.
+    const floor: number[] = [];
+    let k = 0;
+    await Promise.all(
+      Array.from({ length: CONCURRENCY }, async () => {
+        while (k++ < REQUESTS / 4) {
+          const t = performance.now();
+          await (await fetch(`${base}/api/auth/session`, { headers: { cookie } })).text();
+          floor.push(performance.now() - t);
+        }
+      }),
+    );
+    floor.sort((a, b) => a - b);
+
     const samples: Record<string, number[]> = Object.fromEntries(names.map((n) => [n, []]));
     let next = 0;
     const t0 = performance.now();
@@ -145,6 +159,7 @@ async function main() {
     }
     all.sort((a, b) => a - b);
     console.log(`${'all'.padEnd(22)} ${String(all.length).padStart(5)} ${ms(quantile(all, 0.5))} ${ms(quantile(all, 0.95))} ${ms(quantile(all, 0.99))}   (target p95 ≤ 50 ms)`);
+    console.log(`${'floor: /api/auth/session'.padEnd(22)} ${String(floor.length).padStart(5)} ${ms(quantile(floor, 0.5))} ${ms(quantile(floor, 0.95))} ${ms(quantile(floor, 0.99))}   (no query: what the server and machine cost alone)`);
   } finally {
     if (app.pid) process.kill(-app.pid, 'SIGTERM');
   }

@@ -7,15 +7,16 @@ import type { ClockResult } from '@/lib/calendar';
 
 /**
  * The review due date to store with a step, computed inside its transaction: the clock started
- * at `startedAt`, read at the transaction's own time, with the log so far plus the step being written.
+ * at `startedAt`, read at the transaction's own time, with the log so far plus the step being written
+ * (`pending`, logged after the claim's columns).
  */
-export async function dueOnWith(trx: Knex, claim: ClaimRecord, startedAt: string, pending: ClockEvent | null): Promise<string | null> {
+export async function dueOnWith(trx: Knex, claim: ClaimRecord, startedAt: string, pending: ClockEvent['event'] | null): Promise<string | null> {
   // One connection: one query at a time.
   const cal = await brandCalendar(claim.brandId, trx);
   const reviewDays = await reviewDaysFor(claim.brandId, claim.partCategory, trx);
   const events = await clockEventsFor([claim.id], trx);
   const now = await transactionNow(trx);
-  const log = [...(events.get(claim.id) ?? []), ...(pending ? [{ ...pending, at: now }] : [])];
+  const log = [...(events.get(claim.id) ?? []), ...(pending ? [{ event: pending, at: now }] : [])];
   const clock = reviewDeadline({ startedAt, now, timeZone: cal.timeZone, calendar: { holidays: cal.holidays }, reviewDays, events: log });
   return storedDueOn(clock);
 }

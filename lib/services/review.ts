@@ -10,7 +10,7 @@ import { dueOnWith, startedAtOf } from '@/lib/services/review-clock';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@/lib/errors';
 import type { CurrencyCode } from '@/lib/money';
-import { appealWindowEnd, buildApproval, checklistFrom, describeChange, type ApprovalOutcome } from '@/lib/review';
+import { appealWindowEnd, buildApproval, checklistFrom, describeChange, type ApprovalOutcome, type RequestItemKey } from '@/lib/review';
 import { applyStep, logClaimNote, type StepContext, type StepOutcome } from '@/lib/services/claim-steps';
 import { notifyBrandRole, notifyDealer } from '@/lib/services/claim-notify';
 import { evidenceSummaryFor } from '@/lib/services/claims';
@@ -50,7 +50,7 @@ export async function releaseClaim(user: AppUser, claimId: string, note: string 
 // ---- asking for more ----
 
 export async function requestInfo(user: AppUser, claimId: string, input: RequestInfoRequest, version: Version): Promise<StepOutcome> {
-  const built = checklistFrom(input.items.map((i) => ({ key: i.key as never, detail: i.detail })));
+  const built = checklistFrom(input.items.map((i) => ({ key: i.key as RequestItemKey, detail: i.detail })));
   if (!built.ok) throw new ValidationError(built.message, { [built.field]: [built.message] });
   const { checklist } = built;
   return applyStep(user, claimId, 'REQUEST_INFO', { checklist, message: input.message }, {
@@ -72,7 +72,7 @@ export async function resubmitClaim(user: AppUser, claimId: string, message: str
     prepare: async ({ trx, claim }) => ({ evidence: await evidenceSummaryFor(claim, trx), ...(message ? { message } : {}) }),
     columns: async ({ trx, claim }) => {
       const started = (await startedAtOf(trx, claim.id)) ?? (await transactionNow(trx));
-      return { review_due_on: await dueOnWith(trx, claim, started, { event: 'RESUBMIT', at: '' }) };
+      return { review_due_on: await dueOnWith(trx, claim, started, 'RESUBMIT') };
     },
     after: async ({ trx, claim }) => {
       await notifyBrandRole(trx, claim, 'brand_rep', {

@@ -2,6 +2,8 @@ import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db/connection';
 import { parseDocumentNumber } from '@/lib/credits';
+import { brandCalendar, clockEventsFor } from '@/lib/db/review';
+import { reviewDeadline } from '@/lib/review';
 import {
   claimRow, DEALER, DEALER_ADMIN, events, FOREIGN_REP, fullApproval, laborId, notesFor, OTHER_DEALER, REP, REP2, step, submittedClaim, take,
   versionOf, WAREHOUSE,
@@ -245,6 +247,15 @@ describe('asking for more', () => {
     expect(resumed.assigned_rep_id).toBe(waiting.assigned_rep_id);
     expect(resumed.review_due_on).not.toBeNull();
     expect(resumed.review_due_on >= due).toBe(true);
+    // The stored date is the clock read from the log at the resubmission (the pause closed by it).
+    const cal = await brandCalendar(c.brandId);
+    const log = (await clockEventsFor([c.id])).get(c.id)!;
+    const expected = reviewDeadline({
+      startedAt: new Date(resumed.review_started_at).toISOString(), now: log.at(-1)!.at, timeZone: cal.timeZone,
+      calendar: { holidays: cal.holidays }, reviewDays: 5, events: log,
+    });
+    expect(log.map((e) => e.event)).toEqual(['SUBMIT', 'REQUEST_INFO', 'RESUBMIT']);
+    expect(resumed.review_due_on).toBe(expected.dueDate);
     const told = (await notesFor(c.id)).filter((n) => n.kind === 'resubmitted');
     expect(told.map((n) => n.email)).toEqual([REP]); // only the assigned rep
     const [ev] = await events(c.id, 'RESUBMIT');

@@ -7,7 +7,7 @@ import { postStep } from '@/components/review/post-json';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { formatMoney, type CurrencyCode } from '@/lib/money';
-import { buildApproval, compareLines, describeChange, REQUEST_ITEMS, type ApprovalDraft, type ClaimLines, type LineStatus, type ScheduleOperation } from '@/lib/review';
+import { buildApproval, describeChange, REQUEST_ITEMS, type ApprovalDraft, type ClaimLines, type LineStatus, type ScheduleOperation } from '@/lib/review';
 
 type Props = {
   claimId: string;

@@ -1,10 +1,9 @@
 import 'server-only';
-import type { Knex } from 'knex';
 import { db } from '@/db/connection';
 import { DEALER_ROLES } from '@/lib/auth/roles';
 import { formatRmaNumber } from '@/lib/credits';
 import { listLaborOperations } from '@/lib/db/catalog';
-import { findClaimForUser, nextSequence, type ClaimRecord } from '@/lib/db/claims';
+import { findClaimForUser, nextSequence } from '@/lib/db/claims';
 import { appealDaysFor, messageWithKey, otherActiveReps, transactionNow } from '@/lib/db/review';
 import { dueOnWith, startedAtOf } from '@/lib/services/review-clock';
 import type { AppUser } from '@/lib/db/users';

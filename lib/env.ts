@@ -52,6 +52,12 @@ export function env(): Env {
   return cached;
 }
 
+/** Reads the environment again; for tests that point a client at a fake of their own. */
+export function reloadEnv(): Env {
+  cached = undefined;
+  return env();
+}
+
 export function databaseUrl(): string {
   return env().DATABASE_URL;
 }

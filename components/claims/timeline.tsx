@@ -3,7 +3,7 @@ import { ATTACHMENT_LABELS, type AttachmentKind } from '@/lib/claims/attachment-
 import type { ClaimEventRow } from '@/lib/db/claims';
 import { formatDateTime } from '@/lib/format/dates';
 import { carrierName } from '@/lib/carrier/carriers';
-import { CORE_CONDITION_LABELS, describeState, EVENT_LABELS, INSPECTION_RESULT_LABELS, isClaimEventType, WAIVER_REASON_LABELS } from '@/machines/claim';
+import { CORE_CONDITION_LABELS, DENIAL_REASON_LABELS, describeState, EVENT_LABELS, INSPECTION_RESULT_LABELS, isClaimEventType, WAIVER_REASON_LABELS, type DenialReason } from '@/machines/claim';
 
 function wording(e: ClaimEventRow): string {
   if (isClaimEventType(e.event)) return EVENT_LABELS[e.event].done;
@@ -49,6 +49,11 @@ export function Timeline({ events, timeZone }: { events: ClaimEventRow[]; timeZo
             <span className={`absolute -left-[27px] top-1.5 h-3 w-3 rounded-full border-2 border-paper ${changed ? 'bg-charge-500' : 'bg-ink-faint'}`} aria-hidden />
             <p className="font-bold">{wording(e)}</p>
             {changed ? <p className="text-sm text-charge-700">Now: {describeState(e.toState).label}</p> : null}
+            {Array.isArray(e.payload.checklist) ? (
+              <ul className="mt-1 list-disc pl-5 text-sm">{(e.payload.checklist as string[]).map((c) => <li key={c}>{c}</li>)}</ul>
+            ) : null}
+            {e.event === 'APPROVE' && typeof e.payload.rmaNumber === 'string' ? <p className="text-sm">{e.payload.extent === 'partial' ? 'In part' : 'In full'} · RMA <span className="font-mono">{e.payload.rmaNumber}</span></p> : null}
+            {e.event === 'DENY' && typeof e.payload.reasonCode === 'string' ? <p className="text-sm">{DENIAL_REASON_LABELS[e.payload.reasonCode as DenialReason] ?? e.payload.reasonCode}</p> : null}
             {typeof e.payload.message === 'string' && e.payload.message ? <p className="mt-1 whitespace-pre-wrap rounded-md bg-paper-sunk px-3 py-2 text-sm">{e.payload.message}</p> : null}
             {typeof e.payload.note === 'string' && e.payload.note ? <p className="mt-1 text-sm text-ink-soft">“{e.payload.note}”</p> : null}
             {fulfilmentDetail(e) ? <p className="mt-1 text-sm text-ink-soft">{fulfilmentDetail(e)}</p> : null}

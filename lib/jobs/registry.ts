@@ -2,6 +2,7 @@ import 'server-only';
 import { env } from '@/lib/env';
 import { drainOutbox } from '@/lib/jobs/outbox';
 import { pollTracking, runCoreClock } from '@/lib/services/tracking';
+import { remindReviewDeadlines } from '@/lib/jobs/review-deadlines';
 
 export type Job = { name: string; everyMs: number; run: () => Promise<unknown> };
 
@@ -10,4 +11,6 @@ export const jobs: Job[] = [
   { name: 'outbox', everyMs: 2_000, run: drainOutbox },
   { name: 'carrier-tracking', everyMs: env().CARRIER_POLL_SECONDS * 1000, run: () => pollTracking() },
   { name: 'core-return-clock', everyMs: 10 * 60_000, run: () => runCoreClock() },
+  // Review deadlines near or passed: once per claim, threshold and deadline.
+  { name: 'review-deadlines', everyMs: 5 * 60_000, run: () => remindReviewDeadlines() },
 ];

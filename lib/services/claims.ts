@@ -13,6 +13,7 @@ import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@
 import { parseAmount, type CurrencyCode } from '@/lib/money';
 import { applyStep, type StepOutcome } from '@/lib/services/claim-steps';
 import { notifyBrandRole } from '@/lib/services/claim-notify';
+import { reviewColumnsOnSubmit } from '@/lib/services/review-clock';
 import type { ClaimDraftInput } from '@/lib/validation/claims';
 import { initialClaimSnapshot } from '@/machines/claim';
 
@@ -130,7 +131,7 @@ export async function submitClaim(user: AppUser, claimId: string, expectedVersio
       }
       return { evidence };
     },
-    columns: () => ({ submitted_at: db().fn.now() }),
+    columns: async ({ trx, claim }) => ({ submitted_at: db().fn.now(), ...(await reviewColumnsOnSubmit(trx, claim)) }),
     after: async ({ trx, claim }) => {
       await notifyBrandRole(trx, claim, 'brand_rep', {
         kind: 'claim_submitted',
@@ -146,6 +147,7 @@ const lower = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
 export async function withdrawClaim(user: AppUser, claimId: string, note: string | undefined, expectedVersion?: number): Promise<StepOutcome> {
   return applyStep(user, claimId, 'WITHDRAW', note ? { note } : {}, {
     expectedVersion,
+    columns: () => ({ review_due_on: null }),
     after: async ({ trx, claim }) => {
       if (claim.stage === 'draft') return;
       await notifyBrandRole(trx, claim, 'brand_rep', {

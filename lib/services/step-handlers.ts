@@ -1,11 +1,13 @@
 import 'server-only';
 import { z } from 'zod';
 import type { AppUser } from '@/lib/db/users';
-import { ValidationError } from '@/lib/errors';
+import { ForbiddenError, ValidationError } from '@/lib/errors';
 import type { StepOutcome } from '@/lib/services/claim-steps';
 import { submitClaim, withdrawClaim } from '@/lib/services/claims';
 import { inspectCore, issueReturnLabel, markCoreShipped, receiveCore, shipReplacement, waiveCore } from '@/lib/services/fulfilment';
-import { CLAIM_EVENT_TYPES, type ClaimEventType } from '@/machines/claim';
+import { appealClaim, approveClaim, denyClaim, releaseClaim, requestInfo, resubmitClaim, takeClaim } from '@/lib/services/review';
+import { appealSchema, approveRequestSchema, denySchema, requestInfoSchema, resubmitSchema } from '@/lib/validation/review';
+import { CLAIM_EVENT_TYPES, EVENT_RULES, type ClaimEventType } from '@/machines/claim';
 
 export const stepRequestSchema = z.looseObject({
   type: z.enum(CLAIM_EVENT_TYPES as unknown as [ClaimEventType, ...ClaimEventType[]], { message: 'Unknown step.' }),
@@ -29,11 +31,22 @@ export const stepHandlers: Partial<Record<ClaimEventType, Handler>> = {
   CORE_RECEIVED: (user, id, body) => receiveCore(user, id, body),
   INSPECT: (user, id, body) => inspectCore(user, id, body),
   WAIVE_CORE: (user, id, body) => waiveCore(user, id, body),
+  // Review (brand reps) and the dealer's answers; each body is checked by its schema (422) before the step.
+  TAKE: (user, id, _body, version) => takeClaim(user, id, version),
+  RELEASE: (user, id, body, version) => releaseClaim(user, id, note.parse(body).note, version),
+  REQUEST_INFO: (user, id, body, version) => requestInfo(user, id, requestInfoSchema.parse(body), version),
+  RESUBMIT: (user, id, body, version) => resubmitClaim(user, id, resubmitSchema.parse(body).message || undefined, version),
+  APPROVE: (user, id, body, version) => approveClaim(user, id, approveRequestSchema.parse(body), version),
+  DENY: (user, id, body, version) => denyClaim(user, id, denySchema.parse(body), version),
+  APPEAL: (user, id, body, version) => appealClaim(user, id, appealSchema.parse(body).message, version),
 };
 
 export async function runStepRequest(user: AppUser, claimId: string, body: unknown): Promise<StepOutcome> {
   const parsed = stepRequestSchema.parse(body);
   const handler = stepHandlers[parsed.type];
   if (!handler) throw new ValidationError(`“${parsed.type}” is not a step you can take here.`, { type: ['Not available.'] });
+  // A role that may never take this step is told so before its form is judged.
+  const rule = EVENT_RULES[parsed.type];
+  if (!(rule.roles as readonly string[]).includes(user.role)) throw new ForbiddenError(`Only ${rule.who} can ${rule.does}.`);
   return handler(user, claimId, parsed, parsed.version);
 }

@@ -12,6 +12,9 @@ import { Timeline } from '@/components/claims/timeline';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
 import { FulfilmentPanel } from '@/components/fulfilment/fulfilment-panel';
+import { DealerReview } from '@/components/review/dealer-review';
+import { MessageThread } from '@/components/review/message-thread';
+import { RepReview } from '@/components/review/rep-review';
 import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { requireUser } from '@/lib/auth/session';
@@ -84,6 +87,8 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
       ) : null}
 
       {isDealer && draft ? <DraftChecklist claimId={claim.id} version={claim.version} missing={readiness.missing} /> : null}
+      {isDealer ? <DealerReview user={user} view={view} /> : null}
+      {user.role === 'brand_rep' ? <RepReview user={user} view={view} /> : null}
 
       <FulfilmentPanel claim={claim} user={user} attachments={attachments} />
 
@@ -141,6 +146,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
               ) : null}
             </dl>
           </section>
+          <MessageThread user={user} view={view} />
           <section className="card p-5">
             <h2 className="mb-4">Timeline</h2>
             <Timeline events={events} timeZone={user.timeZone} />

@@ -4,6 +4,7 @@ import type { AppUser } from '@/lib/db/users';
 import { ValidationError } from '@/lib/errors';
 import type { StepOutcome } from '@/lib/services/claim-steps';
 import { submitClaim, withdrawClaim } from '@/lib/services/claims';
+import { issueCredit } from '@/lib/services/credits';
 import { CLAIM_EVENT_TYPES, type ClaimEventType } from '@/machines/claim';
 
 export const stepRequestSchema = z.looseObject({
@@ -22,6 +23,8 @@ const note = z.object({ note: z.string().trim().max(1000).optional() });
 export const stepHandlers: Partial<Record<ClaimEventType, Handler>> = {
   SUBMIT: (user, id, _body, version) => submitClaim(user, id, version),
   WITHDRAW: (user, id, body, version) => withdrawClaim(user, id, note.parse(body).note, version),
+  // The memo is issued exactly as the accountant saw it; RECONCILE runs when a statement match is confirmed.
+  ISSUE_CREDIT: (user, id, body, version) => issueCredit(user, id, z.object({ draftHash: z.string() }).parse(body).draftHash, version),
 };
 
 export async function runStepRequest(user: AppUser, claimId: string, body: unknown): Promise<StepOutcome> {

@@ -8,8 +8,8 @@ export const STATEMENT_FIELD_LABELS: Record<StatementField, string> = {
   date: 'Date',
   reference: 'Reference (memo, claim or RMA number)',
   amount: 'Amount (signed)',
-  credit: 'Credit column',
-  debit: 'Debit column',
+  credit: 'Credit',
+  debit: 'Debit',
   currency: 'Currency code',
   account: 'Dealer account number',
 };

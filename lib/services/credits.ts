@@ -197,6 +197,13 @@ export async function editCreditLine(user: AppUser, claimId: string, edit: { lin
       throw e;
     }
     const line = computed.draft.lines.find((l) => l.lineNo === edit.lineNo);
+    // The accountant adjusts what was approved; a line the rep did not approve (or a part the brand
+    // shipped) is not turned into a credit here.
+    if (line?.status === 'not_credited') {
+      throw new ValidationError(`Line ${line.lineNo} is not credited (${line.description.split(' — ').pop()}); a credit for it needs the rep’s approval, not an adjustment.`, {
+        _form: ['Only credited lines and chargebacks are adjusted.'],
+      });
+    }
     let next: CreditMemoDraft;
     try {
       next = adjustLine(computed.draft, { lineNo: edit.lineNo, amountMinor: amount.value, reason: edit.reason, by: user.name, at: new Date().toISOString() });

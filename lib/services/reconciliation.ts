@@ -294,6 +294,6 @@ export async function statementView(user: AppUser, importId: string, filter: Lin
   const imp = await findImport(user.organisationId, importId);
   if (!imp) throw new NotFoundError('No such statement.');
   const pageSize = 100;
-  const [lines, memos] = await Promise.all([statementLines(imp.id, filter, page, pageSize), unmatchedMemos(user.organisationId, imp.dealerId, 100)]);
+  const [lines, memos] = await Promise.all([statementLines(imp.id, filter, page, pageSize), unmatchedMemos(user.organisationId, imp.dealerId, 25)]);
   return { import: imp, lines, memos, page, pageSize, filter };
 }

@@ -167,6 +167,10 @@ describe('refusals leave everything as it was', () => {
       status: 422, message: expect.stringMatching(/cannot become a credit/),
     });
     await expect(editCreditLine(user, claim.id, { lineNo: 2, amount: '-5.00', reason: 'no' })).rejects.toMatchObject({ status: 422 });
+    // Line 1 is the drive unit the brand shipped: not credited, and not made into a credit by an edit.
+    await expect(editCreditLine(user, claim.id, { lineNo: 1, amount: '549.00', reason: 'goodwill' })).rejects.toMatchObject({
+      status: 422, message: expect.stringMatching(/needs the rep’s approval/),
+    });
     expect((await draftOf(claim.id)).hash).toBe(before.hash);
     expect(await db()('credit_draft_edits').where({ claim_id: claim.id }).count('id as n').first()).toMatchObject({ n: 0 });
   });

@@ -36,7 +36,7 @@ export function CostChart({ rows, currency, labels }: { rows: Row[]; currency: s
           <Legend wrapperStyle={{ fontSize: 12 }} />
           <ReferenceLine y={0} stroke="#1c2124" />
           {SERIES.map((s) => (
-            <Bar key={s.key} dataKey={s.key} name={s.label} stackId="cost" fill={s.color} isAnimationActive={false} />
+            <Bar key={s.key} dataKey={s.key} name={s.label} stackId="cost" fill={s.color} maxBarSize={72} isAnimationActive={false} />
           ))}
         </BarChart>
       </ResponsiveContainer>

@@ -59,6 +59,7 @@ export type QueueRow = {
   requestedLines: RequestedLines;
   approvedLines: RequestedLines | null;
   context: ClaimContext;
+  failureDate: string | null;
   waitingSince: string;
 };
 
@@ -87,7 +88,7 @@ export async function listCreditQueue(user: AppUser, query: QueueQuery): Promise
       .select(
         'c.id', 'c.number', 'c.version', 'd.name as dealerName', 'a.account_number as accountNumber', 'p.part_number as partNumber',
         'p.name as partName', 'c.rma_number as rmaNumber', 'b.currency', 'c.brand_id as brandId', 'c.dealer_account_id as dealerAccountId',
-        'c.requested_lines as requestedLines', 'c.approved_lines as approvedLines', 'c.context', 'c.updated_at as waitingSince',
+        'c.requested_lines as requestedLines', 'c.approved_lines as approvedLines', 'c.context', 'c.failure_date as failureDate', 'c.updated_at as waitingSince',
       )
       .orderBy([{ column: SORTS[query.sort], order: query.dir }, { column: 'c.id', order: query.dir }])
       .limit(query.pageSize)

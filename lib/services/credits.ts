@@ -139,7 +139,7 @@ export async function creditQueue(user: AppUser, query: QueueQuery) {
   const page = await listCreditQueue(user, query);
   const rows = await Promise.all(
     page.rows.map(async (r) => {
-      const claim = { ...r, failureDate: null } as unknown as CreditClaim;
+      const claim: CreditClaim = { ...r, currency: r.currency };
       let totalMinor: number | null = null;
       let problem: string | null = null;
       let chargeback = false;
@@ -153,7 +153,7 @@ export async function creditQueue(user: AppUser, query: QueueQuery) {
         if (!(e instanceof CreditInputError)) throw e;
         problem = e.issues[0]?.message ?? 'cannot be computed';
       }
-      const { context, requestedLines: _r, approvedLines: _a, ...rest } = r;
+      const { context, requestedLines: _r, approvedLines: _a, failureDate: _f, ...rest } = r;
       return {
         ...rest,
         afterTest: context.afterTest.outcome,

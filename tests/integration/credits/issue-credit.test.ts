@@ -35,6 +35,10 @@ describe('issuing the credit memo of a verified claim', () => {
     const labor = draft.lines[1]!.basis;
     expect(labor).toMatchObject({ kind: 'labor', capApplied: false, rateAppliedMinor: 7900, dealerRateMinor: 7900, brandMaxRateMinor: 9500 });
     expect(view.claim.stage).toBe('credit_pending');
+    // The queue lists it with the same computed total, found by its number.
+    await signedIn(PEOPLE.torvane.accountant);
+    const page = await (await queueRoute(new Request(`http://x/api/accounts/queue?q=${claim.number}`), { params: Promise.resolve({}) })).json();
+    expect(page).toMatchObject({ total: 1, rows: [{ id: claim.id, totalMinor: 17650, afterTest: 'passed', core: 'inspected', chargeback: false }] });
 
     const outboxBefore = Number((await db()('outbox').count('id as n').first())!.n);
     const out = await issueCredit(await accountant(), claim.id, hash, view.claim.version);

@@ -88,7 +88,7 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
                 <td className="py-2 text-right"><MoneyFigure minor={t.net.totalMinor} currency={t.currency} strong /></td>
               </tr>
             ))}
-            {aging.rows.length === 0 ? <tr><td colSpan={6} className="py-6 text-center text-ink-muted">Nothing is open: every memo is on a statement.</td></tr> : null}
+            {aging.rows.length === 0 ? <tr><td colSpan={6} className="py-6 text-center text-ink-muted">No memo is open: none issued yet, or every one is on a statement.</td></tr> : null}
           </tbody>
         </table>
       </section>

@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { POST as importRoute } from '@/app/api/accounts/statements/route';
 import { db } from '@/db/connection';
+import { localDateOfEpoch } from '@/lib/calendar/time-zone';
 import { issueCredit, loadCreditView } from '@/lib/services/credits';
 import { chooseMemoForLine, confirmMatch, importStatement, rejectMatch, StatementRejected, type ImportRequest } from '@/lib/services/reconciliation';
 import { listSources } from '@/lib/db/statements';
@@ -10,7 +11,8 @@ import { claimFor, oddFreight, PEOPLE, signedIn, stageOf } from '../../support/c
 
 const accountant = () => signedIn(PEOPLE.torvane.accountant);
 const orgId = async (slug: string) => (await db()('organisations').where({ slug }).first('id')).id as string;
-const today = () => new Date().toISOString().slice(0, 10);
+// Memos are dated in the brand's calendar (Torvane: Europe/Amsterdam), not the server's.
+const today = () => localDateOfEpoch(Date.now(), 'Europe/Amsterdam');
 
 async function issuedMemo(spec: Parameters<typeof claimFor>[0] = {}) {
   const claim = await claimFor(spec);

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { GET as dealerExportRoute } from '@/app/api/credits/export/route';
 import { GET as brandExportRoute } from '@/app/api/accounts/memos/export/route';
 import { db } from '@/db/connection';
+import { localDateOfEpoch } from '@/lib/calendar/time-zone';
 import { issueCredit, loadCreditView } from '@/lib/services/credits';
 import { addLiabilityEntry, agingReport, rollForwardReport, warrantyCostReport } from '@/lib/services/accounting-reports';
 import { dealerCredits } from '@/lib/services/dealer-credits';
@@ -11,7 +12,8 @@ import { claimFor, PEOPLE, signedIn } from '../../support/credit-claims';
 
 const accountant = () => signedIn(PEOPLE.torvane.accountant);
 const orgId = async (slug: string) => (await db()('organisations').where({ slug }).first('id')).id as string;
-const today = () => new Date().toISOString().slice(0, 10);
+// Memos are dated in the brand's calendar (Torvane: Europe/Amsterdam), not the server's.
+const today = () => localDateOfEpoch(Date.now(), 'Europe/Amsterdam');
 
 async function issued(spec: Parameters<typeof claimFor>[0] = {}) {
   const claim = await claimFor(spec);

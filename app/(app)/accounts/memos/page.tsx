@@ -110,8 +110,10 @@ export default async function MemosPage({ searchParams }: { searchParams: Promis
         </span>
       </div>
       <p className="mt-4 text-xs text-ink-muted">
-        The CSV has one row per memo line in our layout LP-MEMO-LINES-1 (UTF-8, RFC 4180, amounts with a dot and the currency’s decimals); the
-        columns are described in the developer guide. It takes the dates above, or everything when none are set.
+        The CSV has one row per memo line in our layout LP-MEMO-LINES-1 (UTF-8, RFC 4180): memo number, kind and date, the memo it reverses,
+        dealer and account, claim and RMA numbers, currency, each line’s kind, status, chargeback reason, part, labor code, quantity or hours,
+        unit amount, computed and posted amounts, the adjustment reason and the memo total. Amounts have a dot and the currency’s decimals. It takes
+        the dates above, or everything when none are set.
       </p>
     </>
   );

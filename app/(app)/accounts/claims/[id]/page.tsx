@@ -60,6 +60,12 @@ export default async function ClaimCreditPage({ params, searchParams }: { params
           draft below shows what it would come to today.
         </Notice>
       ) : null}
+      {!open && memos.length === 0 && claim.stage !== 'approved' ? (
+        <Notice tone="info" title="No credit for this claim yet">
+          It is {state.label.toLowerCase()}. A credit is computed once the claim is approved, and issued when its replacement is verified and its
+          core is dealt with.
+        </Notice>
+      ) : null}
       {problems.length ? (
         <Notice tone="danger" title="The credit cannot be computed">
           <ul className="list-disc pl-5">

@@ -25,18 +25,17 @@ export async function creditTerms(claim: { brandId: string; dealerAccountId: str
 export async function creditCatalog(brandId: string, lines: readonly RequestedLines[], q: Knex = db()): Promise<CreditCatalog> {
   const partNumbers = [...new Set(lines.flatMap((l) => l.parts.map((p) => p.partNumber)))];
   const codes = [...new Set(lines.flatMap((l) => l.labor.map((x) => x.code)))];
-  const [parts, ops, prices] = await Promise.all([
-    partNumbers.length ? q('parts').select('part_number', 'category').where({ brand_id: brandId }).whereIn('part_number', partNumbers) : [],
-    codes.length ? q('labor_operations').select('code', 'standard_hours').where({ brand_id: brandId }).whereIn('code', codes) : [],
-    partNumbers.length
-      ? q('price_list as pl')
-          .join('parts as p', 'p.id', 'pl.part_id')
-          .select('p.part_number as partNumber', 'pl.net_price_minor as dealerNetMinor', 'pl.effective_from as effectiveFrom')
-          .where('pl.brand_id', brandId)
-          .whereIn('p.part_number', partNumbers)
-          .orderBy(['p.part_number', 'pl.effective_from'])
-      : [],
-  ]);
+  // One after the other: inside a transaction the queries share one connection.
+  const parts = partNumbers.length ? await q('parts').select('part_number', 'category').where({ brand_id: brandId }).whereIn('part_number', partNumbers) : [];
+  const ops = codes.length ? await q('labor_operations').select('code', 'standard_hours').where({ brand_id: brandId }).whereIn('code', codes) : [];
+  const prices = partNumbers.length
+    ? await q('price_list as pl')
+        .join('parts as p', 'p.id', 'pl.part_id')
+        .select('p.part_number as partNumber', 'pl.net_price_minor as dealerNetMinor', 'pl.effective_from as effectiveFrom')
+        .where('pl.brand_id', brandId)
+        .whereIn('p.part_number', partNumbers)
+        .orderBy(['p.part_number', 'pl.effective_from'])
+    : [];
   return {
     partCategories: Object.fromEntries(parts.map((p: { part_number: string; category: string }) => [p.part_number, p.category])),
     scheduledHours: Object.fromEntries(ops.map((o: { code: string; standard_hours: string }) => [o.code, String(o.standard_hours)])),

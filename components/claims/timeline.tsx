@@ -20,6 +20,16 @@ function wording(e: ClaimEventRow): string {
       return 'Replacement delivered by the carrier';
     case 'CORE_PARCEL_DELIVERED':
       return 'Core parcel delivered to the warehouse';
+    case 'CREDIT_LINE_EDITED':
+      return `Credit line ${String(e.payload.lineNo ?? '')} adjusted by the brand`;
+    case 'CREDIT_MEMO_REISSUED':
+      return `Corrected credit memo ${String(e.payload.number ?? '')} issued`;
+    case 'MEMO_REVERSED':
+      return `Memo ${String(e.payload.memo ?? '')} reversed by ${String(e.payload.reversal ?? '')}`;
+    case 'CHARGEBACK_MEMO_ISSUED':
+      return `Chargeback memo ${String(e.payload.number ?? '')} issued`;
+    case 'STATEMENT_MATCHED':
+      return `Memo ${String(e.payload.memo ?? '')} matched to the dealer's statement`;
     default:
       return e.event.replace(/_/g, ' ').toLowerCase();
   }

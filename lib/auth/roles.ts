@@ -84,7 +84,12 @@ export function navFor(role: Role): NavItem[] {
         { href: '/warehouse/stock', label: 'Stock' },
       ];
     case 'accountant':
-      return [{ href: '/accounts', label: 'Credits' }];
+      return [
+        { href: '/accounts', label: 'Credits to issue' },
+        { href: '/accounts/memos', label: 'Memos' },
+        { href: '/accounts/statements', label: 'Statements' },
+        { href: '/accounts/reports', label: 'Reports' },
+      ];
     case 'brand_admin':
       return [
         { href: '/catalog', label: 'Catalog' },

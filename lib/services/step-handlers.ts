@@ -8,6 +8,7 @@ import { inspectCore, issueReturnLabel, markCoreShipped, receiveCore, shipReplac
 import { appealClaim, approveClaim, denyClaim, releaseClaim, requestInfo, resubmitClaim, takeClaim } from '@/lib/services/review';
 import { appealSchema, approveRequestSchema, denySchema, requestInfoSchema, resubmitSchema } from '@/lib/validation/review';
 import { CLAIM_EVENT_TYPES, EVENT_RULES, type ClaimEventType } from '@/machines/claim';
+import { issueCredit } from '@/lib/services/credits';
 
 export const stepRequestSchema = z.looseObject({
   type: z.enum(CLAIM_EVENT_TYPES as unknown as [ClaimEventType, ...ClaimEventType[]], { message: 'Unknown step.' }),
@@ -39,6 +40,8 @@ export const stepHandlers: Partial<Record<ClaimEventType, Handler>> = {
   APPROVE: (user, id, body, version) => approveClaim(user, id, approveRequestSchema.parse(body), version),
   DENY: (user, id, body, version) => denyClaim(user, id, denySchema.parse(body), version),
   APPEAL: (user, id, body, version) => appealClaim(user, id, appealSchema.parse(body).message, version),
+  // The memo is issued exactly as the accountant saw it; RECONCILE runs when a statement match is confirmed.
+  ISSUE_CREDIT: (user, id, body, version) => issueCredit(user, id, z.object({ draftHash: z.string() }).parse(body).draftHash, version),
 };
 
 export async function runStepRequest(user: AppUser, claimId: string, body: unknown): Promise<StepOutcome> {

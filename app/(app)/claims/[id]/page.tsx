@@ -9,6 +9,7 @@ import { SafetyNotes } from '@/components/claims/safety-notes';
 import { StageBadge } from '@/components/claims/stage-badge';
 import { StepButton } from '@/components/claims/step-button';
 import { Timeline } from '@/components/claims/timeline';
+import { ClaimCreditSection } from '@/components/credits/claim-credit-section';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
 import { FulfilmentPanel } from '@/components/fulfilment/fulfilment-panel';
@@ -128,6 +129,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
         </div>
 
         <div className="space-y-6">
+          <ClaimCreditSection claimId={claim.id} stage={claim.stage} role={user.role} />
           <section className="card p-5">
             <h2 className="mb-3">Coverage</h2>
             <CoveragePanel coverage={coverage} />

@@ -60,6 +60,7 @@ async function everyRoute(email: string, id: string, attachment: string) {
     patch: await call(patchClaimRoute, { method: 'PATCH', path: `/api/claims/${id}`, params: p, body: { version: 1, brandId: torvane, frameSerial: 'HIJACKED-1', symptom: 'changed' } }),
     step: await call(stepRoute, { method: 'POST', path: `/api/claims/${id}/steps`, params: p, body: { type: 'WITHDRAW' } }),
     takeStep: await call(stepRoute, { method: 'POST', path: `/api/claims/${id}/steps`, params: p, body: { type: 'SUBMIT' } }),
+    repStep: await call(stepRoute, { method: 'POST', path: `/api/claims/${id}/steps`, params: p, body: { type: 'TAKE' } }),
     upload: await call(requestUploadRoute, { method: 'POST', path: `/api/claims/${id}/uploads`, params: p, body: { kind: 'photo', fileName: 'x.jpg', size: 10, sha256: 'a'.repeat(64) } }),
     complete: await call(completeUploadRoute, { method: 'POST', path: `/api/claims/${id}/uploads/${intentOfDealer}`, params: { id, intentId: intentOfDealer } }),
     deleteAttachment: await call(deleteAttachmentRoute, { method: 'DELETE', path: `/api/claims/${id}/attachments/${attachment}`, params: { id, attachmentId: attachment } }),
@@ -74,7 +75,7 @@ describe('tenant isolation on every claim route', () => {
     const before = await snapshot();
     for (const [id, att] of [[submitted.id, attachmentId], [draft.id, draftAttachmentId]] as const) {
       const r = await everyRoute(PEOPLE.otherShop, id, att);
-      expect(statuses(r)).toEqual({ get: 404, patch: 404, step: 404, takeStep: 404, upload: 404, complete: 404, deleteAttachment: 404, attachment: 404 });
+      expect(statuses(r)).toEqual({ get: 404, patch: 404, step: 404, takeStep: 404, repStep: 403, upload: 404, complete: 404, deleteAttachment: 404, attachment: 404 });
       expect(JSON.stringify(r)).not.toContain(submittedFrame);
     }
     expect(await snapshot()).toEqual(before);
@@ -84,8 +85,9 @@ describe('tenant isolation on every claim route', () => {
     const before = await snapshot();
     for (const [id, att] of [[submitted.id, attachmentId], [draft.id, draftAttachmentId]] as const) {
       const r = await everyRoute(PEOPLE.otherBrandRep, id, att);
-      // PATCH and attachment DELETE refuse the role before looking at any id (same answer for every id).
-      expect(statuses(r)).toEqual({ get: 404, patch: 403, step: 404, takeStep: 404, upload: 404, complete: 404, deleteAttachment: 403, attachment: 404 });
+      // PATCH, attachment DELETE and dealer-only steps (WITHDRAW, SUBMIT) refuse the role before looking at any id,
+      // so the answer is the same whether or not the claim exists.
+      expect(statuses(r)).toEqual({ get: 404, patch: 403, step: 403, takeStep: 403, repStep: 404, upload: 404, complete: 404, deleteAttachment: 403, attachment: 404 });
       expect(JSON.stringify(r)).not.toContain(submittedFrame);
     }
     expect(await snapshot()).toEqual(before);

@@ -341,6 +341,11 @@ async function main() {
   log('migrating and loading the demo scenario…');
   run(bin('tsx'), ['scripts/migrate.ts'], { env: childEnv() });
 
+  if (testing) {
+    // The test database starts empty every run; so do the fakes' stores, or old parcels and
+    // objects would collide with the new run's numbers.
+    for (const d of ['s3', 'carrier']) fs.rmSync(path.join(dataDir, d), { recursive: true, force: true });
+  }
   await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
 
   if (testing) {

@@ -30,6 +30,8 @@ export const envSchema = z.object({
 
   CARRIER_URL: z.url().default('http://127.0.0.1:4600'),
   CARRIER_API_KEY: z.string().default('local-carrier-key'),
+  /** How often the worker asks the carrier about parcels on their way. */
+  CARRIER_POLL_SECONDS: z.coerce.number().int().min(1).max(86400).default(15),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -48,6 +50,12 @@ let cached: Env | undefined;
 export function env(): Env {
   cached ??= parseEnv(process.env);
   return cached;
+}
+
+/** Reads the environment again; for tests that point a client at a fake of their own. */
+export function reloadEnv(): Env {
+  cached = undefined;
+  return env();
 }
 
 export function databaseUrl(): string {

@@ -40,6 +40,8 @@ export type WaiverReason = (typeof WAIVER_REASONS)[number];
 export interface ApprovalLine {
   lineId: string;
   approved: boolean;
+  /** Approved, but less than requested (a lower quantity, fewer hours, another operation, less freight). */
+  changed?: boolean;
   note?: string;
 }
 
@@ -188,6 +190,7 @@ const lineSchema = z.object(
   {
     lineId: text('A line id ("lineId")'),
     approved: flag('Each line\'s "approved"'),
+    changed: flag('Each line\'s "changed"').optional(),
     note: optionalText('A line note'),
   },
   { error: 'Each line must be an object with lineId and approved.' },
@@ -222,8 +225,15 @@ const payloadSchemas = {
         seen.add(line.lineId);
       });
       const approved = e.lines.filter((l) => l.approved).length;
+      const changed = e.lines.find((l) => l.approved && l.changed === true);
       if (approved === 0) {
         ctx.addIssue({ code: 'custom', path: ['lines'], message: 'An approval must approve at least one line; deny the claim instead.' });
+      } else if (e.extent === 'full' && changed) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['extent'],
+          message: `A full approval approves every line as requested; line "${changed.lineId}" was changed, so this is a partial approval.`,
+        });
       } else if (e.extent === 'full' && approved < e.lines.length) {
         const first = e.lines.find((l) => !l.approved);
         ctx.addIssue({
@@ -231,7 +241,7 @@ const payloadSchemas = {
           path: ['extent'],
           message: `A full approval must approve every line; line "${first?.lineId}" is not approved.`,
         });
-      } else if (e.extent === 'partial' && approved === e.lines.length) {
+      } else if (e.extent === 'partial' && approved === e.lines.length && !changed) {
         ctx.addIssue({
           code: 'custom',
           path: ['extent'],

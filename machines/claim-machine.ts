@@ -110,7 +110,12 @@ export const claimMachine = setup({
           actions: assign(({ context, event }) => ({
             lastStepAt: event.at,
             decision: { outcome: event.extent, reasonCode: null, message: null, at: event.at, by: event.actor.id },
-            approvedLines: event.lines.map((l) => ({ lineId: l.lineId, approved: l.approved, ...(l.note === undefined ? {} : { note: l.note }) })),
+            approvedLines: event.lines.map((l) => ({
+              lineId: l.lineId,
+              approved: l.approved,
+              ...(l.changed === undefined ? {} : { changed: l.changed }),
+              ...(l.note === undefined ? {} : { note: l.note }),
+            })),
             rmaNumber: event.rmaNumber,
             core: {
               ...context.core,

@@ -338,6 +338,11 @@ async function main() {
   if (testing) ensureChromium();
   await startPostgres(pgBin);
 
+  if (testing) {
+    // The test database starts empty every run; so do the fakes' stores, or old parcels and
+    // objects would collide with the new run's numbers.
+    for (const d of ['s3', 'carrier']) fs.rmSync(path.join(dataDir, d), { recursive: true, force: true });
+  }
   // The fakes first: the demo scenario puts its load-test files and photos into storage.
   await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
 

@@ -7,14 +7,23 @@ import { env } from '../lib/env';
 import { jobs } from '../lib/jobs/registry';
 
 const running = new Set<string>();
+// A wake-up (NOTIFY) that arrives while the job runs is kept and run right after, not dropped.
+const again = new Set<string>();
 let stopping = false;
 
 async function runJob(name: string) {
   const job = jobs.find((j) => j.name === name);
-  if (!job || running.has(name) || stopping) return;
+  if (!job || stopping) return;
+  if (running.has(name)) {
+    again.add(name);
+    return;
+  }
   running.add(name);
   try {
-    await job.run();
+    do {
+      again.delete(name);
+      await job.run();
+    } while (again.has(name) && !stopping);
   } catch (err) {
     console.error(`[worker] ${name} failed:`, (err as Error).message);
   } finally {

@@ -15,7 +15,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
   if (isAdminRole(user.role) && env().LOADPROOF_LOCAL && env().LOCAL_MAILBOX_URL) items.push({ href: '/mailbox', label: 'Mailbox' });
   return (
     <div className="min-h-screen">
-      <header className="bg-ink text-paper">
+      <header className="bg-ink text-paper print:hidden">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
           <Link href={HOME_PATH[user.role]} aria-label="Loadproof home">
             <Wordmark inverted />

@@ -1,19 +1,16 @@
 'use client';
 
-import { useActionState, useEffect, useRef } from 'react';
 import { inviteAction } from '@/app/(app)/people/actions';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { useKeptForm } from '@/components/ui/use-kept-form';
 
 export function InviteForm({ roles }: { roles: { value: string; label: string; description: string }[] }) {
-  const [state, action, pending] = useActionState(inviteAction, undefined);
-  const form = useRef<HTMLFormElement>(null);
-  useEffect(() => {
-    if (state?.ok) form.current?.reset();
-  }, [state]);
+  // A refused invitation keeps the name and e-mail typed; a sent one clears the form.
+  const { state, pending, ref, onSubmit } = useKeptForm(inviteAction, { resetOnSuccess: true });
   return (
-    <form ref={form} action={action} className="space-y-4">
+    <form ref={ref} onSubmit={onSubmit} className="space-y-4">
       {state?.message ? <Notice tone={state.ok ? 'success' : 'danger'}>{state.message}</Notice> : null}
       <TextField label="Name" name="name" required errors={state?.fieldErrors?.name} />
       <TextField label="E-mail" name="email" type="email" required errors={state?.fieldErrors?.email} />

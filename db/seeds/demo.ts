@@ -1,11 +1,13 @@
 import type { Knex } from 'knex';
 import { seed as organisationsUsers } from './01_organisations_users';
 import { seed as catalog } from './02_catalog';
+import { seed as fulfilment } from './03_fulfilment';
 import { seed as loadTests } from './20_load_tests';
+import { seed as credits } from './30_credits';
 
 // Sections run in order; each is idempotent on its natural keys, so a second start
 // keeps what is there and adds only what a newer version of the scenario brings.
-const sections: ((knex: Knex) => Promise<number>)[] = [organisationsUsers, catalog, loadTests];
+const sections: ((knex: Knex) => Promise<number>)[] = [organisationsUsers, catalog, fulfilment, loadTests, credits];
 
 export async function loadDemo(knex: Knex): Promise<number> {
   let added = 0;

@@ -79,9 +79,17 @@ export function navFor(role: Role): NavItem[] {
     case 'brand_rep':
       return [{ href: '/review', label: 'Review queue' }];
     case 'warehouse':
-      return [{ href: '/warehouse', label: 'Shipping & cores' }];
+      return [
+        { href: '/warehouse', label: 'Shipping & cores' },
+        { href: '/warehouse/stock', label: 'Stock' },
+      ];
     case 'accountant':
-      return [{ href: '/accounts', label: 'Credits' }];
+      return [
+        { href: '/accounts', label: 'Credits to issue' },
+        { href: '/accounts/memos', label: 'Memos' },
+        { href: '/accounts/statements', label: 'Statements' },
+        { href: '/accounts/reports', label: 'Reports' },
+      ];
     case 'brand_admin':
       return [
         { href: '/catalog', label: 'Catalog' },

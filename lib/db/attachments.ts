@@ -51,6 +51,19 @@ export async function findIntent(claimId: string, id: string, createdBy: string,
   );
 }
 
+/**
+ * Takes a ticket for checking: removes it and returns it in one statement, so of two
+ * completions of the same upload only one ever gets it.
+ */
+export async function takeIntent(claimId: string, id: string, createdBy: string, q: Knex = db()): Promise<UploadIntent | null> {
+  const [row] = await q('upload_intents')
+    .where({ id, claim_id: claimId, created_by: createdBy })
+    .delete()
+    .returning(['id', 'claim_id as claimId', 'kind', 'storage_key as storageKey', 'file_name as fileName', 'declared_type as declaredType',
+      'declared_size as declaredSize', 'declared_sha256 as declaredSha256', 'created_by as createdBy', 'expires_at as expiresAt']);
+  return row ?? null;
+}
+
 export async function deleteIntent(id: string, q: Knex = db()): Promise<void> {
   await q('upload_intents').where({ id }).delete();
 }

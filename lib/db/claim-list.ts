@@ -32,9 +32,22 @@ const SORTS: Record<ClaimListQuery['sort'], string> = {
 };
 
 /**
- * One page of the caller's claims, filtered and sorted in SQL. Indexes that serve the
- * dealer list: claims_dealer_updated (dealer_id, updated_at DESC, id DESC) and
- * claims_dealer_stage_updated (dealer_id, stage, updated_at DESC, id DESC).
+ * The order of a page, written so an index can deliver it. Only the failure date can be empty:
+ * undated claims come last newest-first and first oldest-first (the exact reverse), which
+ * claims_dealer_failure serves in both directions. The other columns are NOT NULL; a NULLS
+ * clause on them would not match their indexes and force a sort of all the dealer's claims.
+ */
+function orderFor(query: ClaimListQuery) {
+  const nulls = query.sort === 'failure' ? { nulls: query.dir === 'desc' ? ('last' as const) : ('first' as const) } : {};
+  return [{ column: SORTS[query.sort], order: query.dir, ...nulls }, { column: 'c.id', order: query.dir }];
+}
+
+/**
+ * One page of the caller's claims, filtered and sorted in SQL. Indexes that serve the dealer
+ * list (tests/bench/claims-list.ts prints the plans): claims_dealer_updated (dealer_id,
+ * updated_at DESC, id DESC) for the default order, with or without a stage filter;
+ * claims_dealer_stage_updated (dealer_id, stage, updated_at DESC, id DESC) for the count and
+ * a single rare stage; claims_dealer_number and claims_dealer_failure for the other sorts.
  */
 export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<{ rows: ClaimListRow[]; total: number }> {
   const filtered = scopeClaims(db()('claims as c'), user);
@@ -60,7 +73,7 @@ export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<
         'c.part_category as partCategory', 'c.customer_name as customerName', 'c.rma_number as rmaNumber', 'c.failure_date as failureDate',
         'c.created_at as createdAt', 'c.updated_at as updatedAt',
       )
-      .orderBy([{ column: SORTS[query.sort], order: query.dir, nulls: 'last' }, { column: 'c.id', order: query.dir }])
+      .orderBy(orderFor(query))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
   ]);

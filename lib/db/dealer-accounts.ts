@@ -27,3 +27,23 @@ export async function dealerAccounts(dealerId: string): Promise<DealerAccount[]>
 export async function brandDealerAccounts(brandId: string): Promise<DealerAccount[]> {
   return base(db()).select(columns).where('a.brand_id', brandId).orderBy('d.name');
 }
+
+export type BrandDealerRow = DealerAccount & { city: string; country: string; claims: number };
+
+/** The brand's dealers with where they are and how many claims they have sent. */
+export async function brandDealerList(brandId: string, q: Knex = db()): Promise<BrandDealerRow[]> {
+  return base(q)
+    .select([...columns, 'd.city', 'd.country', q.raw(`(SELECT count(*)::int FROM claims c WHERE c.dealer_account_id = a.id AND c.stage <> 'draft') AS claims`)])
+    .where('a.brand_id', brandId)
+    .orderBy('d.name');
+}
+
+export async function setLaborRate(brandId: string, accountId: string, laborRateMinor: number, q: Knex = db()): Promise<boolean> {
+  return (await q('dealer_accounts').where({ brand_id: brandId, id: accountId }).update({ labor_rate_minor: laborRateMinor })) === 1;
+}
+
+/** Account numbers with the brand, upper-cased → dealer organisation id (registry import). */
+export async function dealersByAccountNumber(brandId: string, q: Knex = db()): Promise<Map<string, string>> {
+  const rows = await q('dealer_accounts').select('account_number as n', 'dealer_id as d').where({ brand_id: brandId });
+  return new Map(rows.map((r: { n: string; d: string }) => [r.n.toUpperCase(), r.d]));
+}

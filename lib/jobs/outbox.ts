@@ -4,8 +4,8 @@ import { retryDelaySeconds } from '@/lib/mail/backoff';
 import { mailTransport } from '@/lib/mail/transport';
 import { env } from '@/lib/env';
 
-/** Sends one batch of due mail; returns how many went out and how many failed. */
-export async function deliverOutboxBatch(limit = 100): Promise<{ sent: number; failed: number }> {
+/** Sends one batch of due mail (200 at most: a batch ends when its slowest mail is sent); returns how many went out and how many failed. */
+export async function deliverOutboxBatch(limit = 200): Promise<{ sent: number; failed: number }> {
   const batch = await leaseDueMail(limit);
   if (!batch.length) return { sent: 0, failed: 0 };
   const from = env().MAIL_FROM;
@@ -15,17 +15,16 @@ export async function deliverOutboxBatch(limit = 100): Promise<{ sent: number; f
       transport.sendMail({ from, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, messageId: m.messageId }),
     ),
   );
-  const sent: number[] = [];
+  const sent = batch.filter((_, i) => results[i]!.status === 'fulfilled').map((m) => m.id);
+  // What went out is recorded first: a failure while recording the others must not leave a sent
+  // mail leased, to be sent again when its lease runs out.
+  await markSent(sent);
   let failed = 0;
   for (const [i, r] of results.entries()) {
-    const m = batch[i]!;
-    if (r.status === 'fulfilled') sent.push(m.id);
-    else {
-      failed++;
-      await markFailed(m.id, String(r.reason?.message ?? r.reason), retryDelaySeconds(m.attempts));
-    }
+    if (r.status === 'fulfilled') continue;
+    failed++;
+    await markFailed(batch[i]!.id, String(r.reason?.message ?? r.reason), retryDelaySeconds(batch[i]!.attempts));
   }
-  await markSent(sent);
   return { sent: sent.length, failed };
 }
 

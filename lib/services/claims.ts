@@ -14,6 +14,7 @@ import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@
 import { parseAmount, type CurrencyCode } from '@/lib/money';
 import { applyStep, type StepOutcome } from '@/lib/services/claim-steps';
 import { notifyBrandRole } from '@/lib/services/claim-notify';
+import { reviewColumnsOnSubmit } from '@/lib/services/review-clock';
 import type { ClaimDraftInput } from '@/lib/validation/claims';
 import { initialClaimSnapshot } from '@/machines/claim';
 
@@ -132,7 +133,7 @@ export async function submitClaim(user: AppUser, claimId: string, expectedVersio
       }
       return { evidence };
     },
-    columns: () => ({ submitted_at: db().fn.now() }),
+    columns: async ({ trx, claim }) => ({ submitted_at: db().fn.now(), ...(await reviewColumnsOnSubmit(trx, claim)) }),
     after: async ({ trx, claim }) => {
       await notifyBrandRole(trx, claim, 'brand_rep', {
         kind: 'claim_submitted',
@@ -148,6 +149,7 @@ const lower = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
 export async function withdrawClaim(user: AppUser, claimId: string, note: string | undefined, expectedVersion?: number): Promise<StepOutcome> {
   return applyStep(user, claimId, 'WITHDRAW', note ? { note } : {}, {
     expectedVersion,
+    columns: () => ({ review_due_on: null }),
     after: async ({ trx, claim }) => {
       if (claim.stage === 'draft') return;
       await notifyBrandRole(trx, claim, 'brand_rep', {
@@ -167,6 +169,11 @@ export async function serialWarnings(user: AppUser, claim: ClaimRecord) {
     { dealerId: user.orgKind === 'dealer' ? user.organisationId : null },
     claim.id,
   );
-  // A dealer may only follow links to its own shop's claims; others are counted, not shown.
-  return open.map((o) => ({ ...o, visible: user.orgKind === 'brand' || o.dealerId === user.organisationId }));
+  // A dealer may only follow links to its own shop's claims; another shop's are counted, and
+  // nothing that identifies them (number, id, shop) leaves this function.
+  return open.map((o) =>
+    user.orgKind === 'brand' || o.dealerId === user.organisationId
+      ? { ...o, visible: true }
+      : { id: null, number: null, stage: o.stage, dealerId: null, visible: false },
+  );
 }

@@ -2,7 +2,7 @@ import 'server-only';
 import { createHash, randomUUID } from 'node:crypto';
 import { db } from '@/db/connection';
 import { ATTACHMENT_LABELS, canAttach, declaredFileProblem, extensionOf, LOAD_TEST_KINDS, PHOTO_KINDS, ruleFor, type AttachmentKind } from '@/lib/claims/attachment-rules';
-import { deleteIntent, findAttachmentForUser, findIntent, insertAttachment, insertIntent, type UploadIntent } from '@/lib/db/attachments';
+import { findAttachmentForUser, findIntent, insertAttachment, insertIntent, takeIntent, type UploadIntent } from '@/lib/db/attachments';
 import { findClaimForUser, type ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { ConflictError, NotFoundError, ValidationError } from '@/lib/errors';
@@ -78,19 +78,22 @@ export type RecordedAttachment = { id: string; kind: AttachmentKind; fileName: s
 export async function completeUpload(user: AppUser, claimId: string, intentId: string): Promise<RecordedAttachment> {
   const claim = await findClaimForUser(user, claimId);
   if (!claim) throw new NotFoundError('No such claim.');
-  const intent = await findIntent(claim.id, intentId, user.id);
+  // Load tests are analysed as they are recorded, with their test conditions (lib/services/load-tests.ts);
+  // their ticket is left for that route.
+  const peek = await findIntent(claim.id, intentId, user.id);
+  if (peek && LOAD_TEST_KINDS.includes(peek.kind)) {
+    throw new ValidationError('A load test is added with its test conditions: use the load-test form on the claim.', { file: ['Use the load-test form.'] });
+  }
+  // The ticket is used up here, whatever the outcome: a second completion of the same upload
+  // (a double click, a retry racing the first) finds none and cannot touch the stored object.
+  const intent = await takeIntent(claim.id, intentId, user.id);
   if (!intent) throw new NotFoundError('No such upload; start it again.');
   const cleanup: string[] = [intent.storageKey];
   const refuse = async (message: string): Promise<never> => {
     await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
-    await deleteIntent(intent.id);
     throw new ValidationError(message, { file: [message] });
   };
 
-  // Load tests are analysed as they are recorded, with their test conditions (lib/services/load-tests.ts).
-  if (LOAD_TEST_KINDS.includes(intent.kind)) {
-    throw new ValidationError('A load test is added with its test conditions: use the load-test form on the claim.', { file: ['Use the load-test form.'] });
-  }
   try {
     const arrived = await arrivedBytes(intent);
     if (!arrived.ok) return await refuse(arrived.message);
@@ -133,14 +136,10 @@ export async function completeUpload(user: AppUser, claimId: string, intentId: s
         contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha, uploadedBy: user.id,
       });
       await logClaimNote(trx, user, locked, 'EVIDENCE_ADDED', { attachmentId: id, kind: intent.kind, fileName: intent.fileName, sha256: storedSha });
-      await deleteIntent(intent.id, trx);
       return { id, kind: intent.kind, fileName: intent.fileName, contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha };
     });
   } catch (err) {
-    if (!(err instanceof ValidationError)) {
-      await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
-      await deleteIntent(intent.id).catch(() => {});
-    }
+    if (!(err instanceof ValidationError)) await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
     throw err;
   }
 }

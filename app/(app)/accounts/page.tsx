@@ -1,19 +1,25 @@
 import type { Metadata } from 'next';
-import { EmptyState } from '@/components/ui/empty-state';
+import { CreditQueueTable } from '@/components/credits/credit-queue-table';
+import { ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/page-header';
 import { requireRole } from '@/lib/auth/session';
+import { ROUNDING_RULE } from '@/lib/money';
 
-export const metadata: Metadata = { title: 'Credits' };
+export const metadata: Metadata = { title: 'Credits to issue' };
 
 export default async function AccountsPage() {
   const user = await requireRole('accountant');
   return (
     <>
-      <PageHeader title="Credits" lead={`Dealer credits and chargebacks for ${user.orgName}.`} />
-      <EmptyState title="No credits to issue">
-        When a claim’s replacement is verified and its core is dealt with, it comes here to be credited: parts, labor at the
-        agreed rate and freight, less any chargeback. Dealer statements are matched here too.
-      </EmptyState>
+      <PageHeader
+        title="Credits to issue"
+        lead={`Claims against ${user.orgName} whose replacement is proven and whose core is dealt with. Open one to check each line and its basis, adjust a line with a reason, and issue the memo.`}
+        actions={<ButtonLink href="/accounts/statements/new" variant="secondary">Import a statement</ButtonLink>}
+      />
+      <CreditQueueTable />
+      <p className="mt-4 text-xs text-ink-muted">
+        Amounts are computed exactly and rounded once per line, {ROUNDING_RULE}; a memo’s total is the sum of its rounded lines.
+      </p>
     </>
   );
 }

@@ -1,5 +1,7 @@
 import type { Metadata } from 'next';
-import { EmptyState } from '@/components/ui/empty-state';
+import { RmaScan } from '@/components/fulfilment/rma-scan';
+import { ReturnsQueue, ToShipQueue } from '@/components/fulfilment/warehouse-queues';
+import { ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/page-header';
 import { requireRole } from '@/lib/auth/session';
 
@@ -8,12 +10,21 @@ export const metadata: Metadata = { title: 'Shipping & cores' };
 export default async function WarehousePage() {
   const user = await requireRole('warehouse');
   return (
-    <>
-      <PageHeader title="Shipping & cores" lead={`Replacements to send and failed parts coming back to ${user.orgName}.`} />
-      <EmptyState title="Nothing to ship or receive">
-        Approved claims appear here with their RMA numbers: pick and ship the replacement, print the packing slip, then
-        receive the core when the dealer sends it back and record your inspection.
-      </EmptyState>
-    </>
+    <div className="space-y-8">
+      <PageHeader
+        title="Shipping & cores"
+        lead={`Replacements to send and failed parts coming back to ${user.orgName}.`}
+        actions={<ButtonLink href="/warehouse/stock" variant="secondary">Stock</ButtonLink>}
+      />
+      <RmaScan />
+      <section className="space-y-3">
+        <h2>To ship</h2>
+        <ToShipQueue />
+      </section>
+      <section className="space-y-3">
+        <h2>Cores coming back</h2>
+        <ReturnsQueue />
+      </section>
+    </div>
   );
 }

@@ -61,6 +61,18 @@ const cases: Array<[string, StoredClaim, unknown, string | RegExp]> = [
     'Every line is approved, so this is a full approval, not a partial one.',
   ],
   [
+    'full approval with a line approved for less than requested',
+    review,
+    { type: 'APPROVE', actor: rep, at: T, extent: 'full', rmaNumber: 'R-1', lines: [{ lineId: 'p1', approved: true, changed: true }] },
+    'A full approval approves every line as requested; line "p1" was changed, so this is a partial approval.',
+  ],
+  [
+    'approval with a non-boolean "changed"',
+    review,
+    { type: 'APPROVE', actor: rep, at: T, extent: 'partial', rmaNumber: 'R-1', lines: [{ lineId: 'p1', approved: true, changed: 'yes' }] },
+    'Each line\'s "changed" must be true or false.',
+  ],
+  [
     'approval approving nothing',
     review,
     { type: 'APPROVE', actor: rep, at: T, extent: 'partial', rmaNumber: 'R-1', lines: [{ lineId: 'p1', approved: false }] },
@@ -158,6 +170,20 @@ describe('stored claims', () => {
     const stored = initialClaimSnapshot({ openedBy: PEOPLE.dealer, openedAt: '2026-02-02T08:00:00Z' });
     expect(() => restoreClaim({ value: 'archived', context: stored.context })).toThrow('Unknown claim state "archived".');
     expect(() => restoreClaim({ value: 'draft', context: null })).toThrow(/context must be an object/);
+  });
+
+  it('a partial approval may approve every line when one of them is approved for less than requested', () => {
+    const result = stepClaim(review, {
+      type: 'APPROVE', actor: rep, at: T, extent: 'partial', rmaNumber: 'R-2',
+      lines: [{ lineId: 'p1', approved: true, changed: true, note: 'quantity 2 → 1' }, { lineId: 'l1', approved: true }],
+    });
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    expect(result.stored.context.decision?.outcome).toBe('partial');
+    expect(result.stored.context.approvedLines).toEqual([
+      { lineId: 'p1', approved: true, changed: true, note: 'quantity 2 → 1' },
+      { lineId: 'l1', approved: true },
+    ]);
   });
 
   it('stepClaim returns the next stored claim and leaves the input untouched', () => {

@@ -9,9 +9,14 @@ import { SafetyNotes } from '@/components/claims/safety-notes';
 import { StageBadge } from '@/components/claims/stage-badge';
 import { StepButton } from '@/components/claims/step-button';
 import { Timeline } from '@/components/claims/timeline';
+import { ClaimCreditSection } from '@/components/credits/claim-credit-section';
 import { EvidenceDropzone } from '@/components/evidence/evidence-dropzone';
 import { EvidenceGallery } from '@/components/evidence/evidence-gallery';
+import { FulfilmentPanel } from '@/components/fulfilment/fulfilment-panel';
 import { LoadTestPanel } from '@/components/loadtest/load-test-panel';
+import { DealerReview } from '@/components/review/dealer-review';
+import { MessageThread } from '@/components/review/message-thread';
+import { RepReview } from '@/components/review/rep-review';
 import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { requireUser } from '@/lib/auth/session';
@@ -83,6 +88,10 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
       ) : null}
 
       {isDealer && draft ? <DraftChecklist claimId={claim.id} version={claim.version} missing={readiness.missing} /> : null}
+      {isDealer ? <DealerReview user={user} view={view} /> : null}
+      {user.role === 'brand_rep' ? <RepReview user={user} view={view} /> : null}
+
+      <FulfilmentPanel claim={claim} user={user} attachments={attachments} />
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="space-y-6">
@@ -122,6 +131,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
         </div>
 
         <div className="space-y-6">
+          <ClaimCreditSection claimId={claim.id} stage={claim.stage} role={user.role} />
           <section className="card p-5">
             <h2 className="mb-3">Coverage</h2>
             <CoveragePanel coverage={coverage} />
@@ -140,6 +150,7 @@ export default async function ClaimPage({ params }: { params: Promise<{ id: stri
               ) : null}
             </dl>
           </section>
+          <MessageThread user={user} view={view} />
           <section className="card p-5">
             <h2 className="mb-4">Timeline</h2>
             <Timeline events={events} timeZone={user.timeZone} />

@@ -106,7 +106,7 @@ const SPECS: Spec[] = [
     },
     after: {
       name: 'hm750-after.csv',
-      text: dynoFile({ torqueAt: assisted({ flatNm: 44, untilKmh: 18, slopeNmPerKmh: 0.6, fadeFrom: 43, cutKmh: 45 }), topKmh: 44, rampS: 24, rateHz: 50, tyre: { widthMm: 55, bsdMm: 622 }, seed: 16, units: 'metric', comment: 'Bench A, tyre 55-622, new motor' }),
+      text: dynoFile({ torqueAt: assisted({ flatNm: 44, untilKmh: 18, slopeNmPerKmh: 0.6, fadeFrom: 43, cutKmh: 45 }), topKmh: 44, rampS: 24, rateHz: 200, tyre: { widthMm: 55, bsdMm: 622 }, seed: 16, units: 'metric', comment: 'Bench A, tyre 55-622, new motor' }),
       conditions: { batterySocStartPct: 100, tyreSize: '55-622', tyrePressurePa: bar(4), tyreMaxPressurePa: bar(4), dynoId: 'Bench A', rollerId: 'RA-1', loadKg: 75, ambientTempC: 20 },
     },
   },

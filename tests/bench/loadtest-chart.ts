@@ -1,75 +1,52 @@
 /**
- * Benchmark: the claim page of a typical dyno run (a few thousand samples) in headless Chromium.
- * Prints how long the overlay chart takes to appear after navigation, the main thread's long tasks
- * (over 50 ms; "total blocking time" is their sum beyond 50 ms each) and how many points the chart
- * draws. Prints figures; never fails on time. Needs the app running (APP_URL) on the database in
- * DATABASE_URL, with its storage:
+ * Benchmark: the claim page of a typical dyno run in headless Chromium. Prints how long the
+ * overlay chart takes to be drawn after navigation, the main thread's long tasks (over 50 ms;
+ * "blocking time" is their sum beyond 50 ms each) and how many points the chart draws, beside the
+ * same figures for a claim page without a load test. Prints figures; never fails on time.
  *
- *   npx tsx --conditions=react-server tests/bench/loadtest-chart.ts [--samples 5000] [--rounds 5]
+ * Read-only, on the demo scenario of a running app (`npm start`): the verified hub-motor claim of
+ * Tidewheel (its after-test has 4,801 samples) and another Tidewheel claim without a load test.
+ *
+ *   npx tsx tests/bench/loadtest-chart.ts [--rounds 5]     (APP_URL and DATABASE_URL as for the app)
  */
-import { createHash, randomBytes } from 'node:crypto';
-import { closeDb, db } from '@/db/connection';
-import { findActiveUser } from '@/lib/db/users';
-import { createDraft } from '@/lib/services/claims';
-import type { APIRequestContext } from 'playwright-core';
+import pg from 'pg';
 import { launch, newPage, signIn } from '../e2e/support/browser';
 
 const args = process.argv.slice(2);
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 && args[i + 1] ? Number(args[i + 1]) : fallback;
-};
-const SAMPLES = arg('samples', 5000);
-const ROUNDS = arg('rounds', 5);
-const DEALER = 'lena.hartmann@kettenblatt.test';
+const i = args.indexOf('--rounds');
+const ROUNDS = i >= 0 ? Number(args[i + 1]) : 5;
+const DEALER = 'maya.lindqvist@tidewheel.test';
+const DEMO_PART_SERIAL = 'HM750-25-2215';
+const APP = process.env.APP_URL ?? 'http://127.0.0.1:3000';
+process.env.APP_URL = APP;
 
-/** A sweep to 25 km/h at 50 Hz in our column layout, power peaking near 20 km/h, torque consistent with 57-622. */
-function dynoCsv(n: number): Buffer {
-  const r = (Math.PI * (622 + 2 * 57)) / 1000 / (2 * Math.PI);
-  const lines = ['time_s,speed_kmh,wheel_torque_nm,wheel_power_w'];
-  for (let i = 0; i < n; i++) {
-    const kmh = 1 + (24 * i) / n + 0.05 * Math.sin(i * 1.7);
-    const p = Math.max(3, 480 * Math.exp(-(((kmh - 20) / 9) ** 2)) + 4 * Math.sin(i * 0.9));
-    lines.push(`${(i * 0.02).toFixed(2)},${kmh.toFixed(3)},${(p / (kmh / 3.6 / r)).toFixed(3)},${p.toFixed(2)}`);
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[xs.length >> 1] ?? NaN;
+
+async function demoClaims(): Promise<{ withRun: string; samples: number; without: string }> {
+  const client = new pg.Client({ connectionString: process.env.DATABASE_URL ?? 'postgres://loadproof@127.0.0.1:54329/loadproof' });
+  await client.connect();
+  try {
+    const run = await client.query(
+      `SELECT c.id, max(r.sample_count) AS samples FROM claims c JOIN load_test_runs r ON r.claim_id = c.id
+       WHERE c.part_serial = $1 GROUP BY c.id`,
+      [DEMO_PART_SERIAL],
+    );
+    const none = await client.query(
+      `SELECT c.id FROM claims c JOIN organisations o ON o.id = c.dealer_id
+       WHERE o.slug = 'tidewheel' AND NOT EXISTS (SELECT 1 FROM load_test_runs r WHERE r.claim_id = c.id) ORDER BY c.created_at LIMIT 1`,
+    );
+    if (!run.rows[0] || !none.rows[0]) throw new Error('the demo scenario is not loaded (start the app with npm start)');
+    return { withRun: run.rows[0].id, samples: Number(run.rows[0].samples), without: none.rows[0].id };
+  } finally {
+    await client.end();
   }
-  return Buffer.from(lines.join('\n') + '\n');
 }
-
-async function emptyDraft(): Promise<string> {
-  const uid = (await db()('users').where({ email: DEALER }).first('id')).id;
-  const user = (await findActiveUser(uid))!;
-  const brandId = (await db()('organisations').where({ slug: 'torvane' }).first('id')).id;
-  const part = (await db()('parts').where({ brand_id: brandId, part_number: 'TV-DU85' }).first('id')).id;
-  const draft = await createDraft(user, {
-    brandId, frameSerial: 'KT25-004187', partId: part, partSerial: `BENCH-${randomBytes(3).toString('hex')}`, failureDate: '2026-11-20',
-    symptom: 'Benchmark claim', errorCodes: '', description: '', customerName: '', customerEmail: '', customerPhone: '',
-    parts: [{ partId: part, quantity: 1, fromDealerStock: false }], labor: [], freight: '',
-  } as never);
-  return draft.id;
-}
-
-/** A draft with one recorded before-test, uploaded through the app's own routes as a signed-in dealer. */
-async function claimWithRun(api: APIRequestContext): Promise<string> {
-  const draft = { id: await emptyDraft() };
-  const bytes = dynoCsv(SAMPLES);
-  const ticketRes = await api.post(`/api/claims/${draft.id}/uploads`, {
-    data: { kind: 'load_test_before', fileName: 'bench.csv', size: bytes.length, sha256: createHash('sha256').update(bytes).digest('hex'), contentType: 'text/csv' },
-  });
-  const ticket = await ticketRes.json();
-  const put = await fetch(ticket.url, { method: 'PUT', headers: ticket.headers, body: new Uint8Array(bytes) });
-  if (!put.ok) throw new Error(`storage PUT failed: ${put.status}`);
-  const added = await api.post(`/api/claims/${draft.id}/load-tests`, { data: { intentId: ticket.intentId, units: 'metric', conditions: { tyreSize: '57-622' } } });
-  if (added.status() !== 201) throw new Error(`the benchmark run was not recorded: ${await added.text()}`);
-  return draft.id;
-}
-
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
 
 async function main() {
+  const claims = await demoClaims();
   const browser = await launch();
-  const { page, context } = await newPage(browser);
+  const { page } = await newPage(browser);
   await signIn(page, DEALER);
-  const claimId = await claimWithRun(context.request);
   await page.addInitScript(() => {
     (window as unknown as { __long: number[] }).__long = [];
     new PerformanceObserver((list) => {
@@ -98,27 +75,25 @@ async function main() {
     }
     return rows;
   };
-  const withChart = await measure(claimId, '[data-testid=power-torque-chart] .recharts-line path');
-  // The same page with no load test yet: what the page costs without the chart.
-  const baseline = await measure(await emptyDraft(), '[data-testid=load-test-upload-before]');
+  const withChart = await measure(claims.withRun, '[data-testid=power-torque-chart] .recharts-line path');
+  const baseline = await measure(claims.without, '[data-testid=claim-number]');
+  await browser.close();
+
   const show = (rows: Row[]) =>
     rows.map((r) => ({ 'ready (ms)': r.readyMs.toFixed(0), 'long tasks': r.longTasks, 'longest task (ms)': r.longestMs.toFixed(0), 'blocking time (ms)': r.tbtMs.toFixed(0), 'points drawn': r.points }));
-  console.log(`Claim page with a ${SAMPLES.toLocaleString('en')}-sample dyno run, ${ROUNDS} loads after one warm-up, headless Chromium (ready = chart drawn):`);
+  console.log(`${APP}: claim page with dyno runs of up to ${claims.samples.toLocaleString('en')} samples, ${ROUNDS} loads after one warm-up (ready = chart drawn):`);
   console.table(show(withChart));
-  console.log('The same page for a draft without a load test (ready = upload form shown):');
+  console.log('A claim page without a load test (ready = page shown):');
   console.table(show(baseline));
   const med = (rows: Row[], k: keyof Row) => median(rows.map((r) => r[k])).toFixed(0);
   console.log(
     `median with chart: ready ${med(withChart, 'readyMs')} ms, longest task ${med(withChart, 'longestMs')} ms, blocking ${med(withChart, 'tbtMs')} ms; ` +
       `without: ready ${med(baseline, 'readyMs')} ms, longest task ${med(baseline, 'longestMs')} ms, blocking ${med(baseline, 'tbtMs')} ms; ` +
-      `${withChart[0]?.points} points drawn for ${SAMPLES} samples.`,
+      `${withChart[0]?.points} points drawn (before and after curves) for ${claims.samples.toLocaleString('en')} samples in the larger run.`,
   );
-  await browser.close();
-  await closeDb();
 }
 
-main().catch(async (err) => {
+main().catch((err) => {
   console.error(err);
-  await closeDb();
   process.exit(1);
 });

@@ -12,6 +12,9 @@ const only = process.argv.slice(2);
 
 const benches: { file: string; serverOnly?: boolean; needsBuild?: boolean }[] = [
   { file: 'loadtest-dyno.ts' },
+  { file: 'loadtest-upload.ts' },
+  // Reads the demo scenario of the app `npm start` serves.
+  { file: 'loadtest-chart.ts' },
   { file: 'reconcile-matching.ts' },
   { file: 'statement-import.ts' },
   { file: 'outbox-send.ts', serverOnly: true },

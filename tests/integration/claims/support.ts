@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { POST as loadTestRoute } from '@/app/api/claims/[id]/load-tests/route';
 import { POST as completeUploadRoute } from '@/app/api/claims/[id]/uploads/[intentId]/route';
 import { POST as requestUploadRoute } from '@/app/api/claims/[id]/uploads/route';
 import { POST as createClaimRoute } from '@/app/api/claims/route';
@@ -92,6 +93,16 @@ export async function upload(
   if (body !== null) {
     const res = await fetch(ticket.body.url, { method: 'PUT', headers: ticket.body.headers, body: new Uint8Array(body) });
     if (!res.ok) throw new Error(`storage PUT failed: ${res.status}`);
+  }
+  if (f.kind === 'load_test_before' || f.kind === 'load_test_after') {
+    // A load test is recorded through its own route, with the run's conditions and its analysis.
+    const r = await call(loadTestRoute, {
+      method: 'POST',
+      path: `/api/claims/${claimId}/load-tests`,
+      params: { id: claimId },
+      body: { intentId: ticket.body.intentId, units: 'metric', conditions: { tyreSize: '50-622' } },
+    });
+    return { ticket, complete: r.status === 201 ? { ...r, status: 200, body: { ...r.body, id: r.body.attachmentId } } : r };
   }
   const complete = await call(completeUploadRoute, {
     method: 'POST',

@@ -88,7 +88,7 @@ describe('upload verification refusals leave nothing behind', () => {
   });
 
   it('a binary file as a load test is refused', async () => {
-    await expectRefusedAtCompletion({ kind: 'load_test_before', fileName: 'run.csv', bytes: Buffer.from([0x00, 0x01, 0x02, 0xff, 0xfe, 0x00]) }, /run\.csv is a file of unknown binary type/);
+    await expectRefusedAtCompletion({ kind: 'load_test_before', fileName: 'run.csv', bytes: Buffer.from([0x00, 0x01, 0x02, 0xff, 0xfe, 0x00]) }, /run\.csv could not be read as a dyno run; nothing was added/);
   });
 
   it('a ticket can be completed once: the same completion twice records one file and keeps its object', async () => {

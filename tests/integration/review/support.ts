@@ -6,6 +6,7 @@ import { db } from '@/db/connection';
 import { createDraft, submitClaim } from '@/lib/services/claims';
 import { findActiveUser } from '@/lib/db/users';
 import { actAs } from '../../support/acting-user';
+import { insertAnalysedLoadTest } from '../../support/analysed-load-test';
 
 export const DEALER = 'lena.hartmann@kettenblatt.test';
 export const DEALER_ADMIN = 'jonas.weber@kettenblatt.test';
@@ -29,7 +30,9 @@ export async function laborId(brandId: string, code: string): Promise<string> {
 
 /** Evidence rows as the upload check would leave them; the files themselves are not needed here. */
 async function attachEvidence(claimId: string, uploadedBy: string) {
-  for (const kind of ['serial_label_photo', 'photo', 'load_test_before']) {
+  // A before-test counts only with its analysis.
+  await insertAnalysedLoadTest(claimId, uploadedBy);
+  for (const kind of ['serial_label_photo', 'photo']) {
     const sha = randomBytes(32).toString('hex');
     await db()('attachments').insert({
       claim_id: claimId, kind, storage_key: `tests/${claimId}/${randomUUID()}`, file_name: `${kind}.${kind === 'load_test_before' ? 'csv' : 'jpg'}`,

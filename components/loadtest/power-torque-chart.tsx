@@ -74,7 +74,7 @@ export function PowerTorqueChart({ axes, before, after, legalLimit, legalLabel, 
           ) : null,
         )}
         {minPower ? <ReferenceLine yAxisId="power" y={minPower} ifOverflow="extendDomain" stroke={COLOURS.minimum} strokeDasharray="2 4" label={{ value: 'Part minimum', position: 'insideTopLeft', fontSize: 11, fill: COLOURS.minimum }} /> : null}
-        {legalLimit ? <ReferenceLine yAxisId="power" x={legalLimit} ifOverflow="extendDomain" stroke={COLOURS.limit} strokeDasharray="4 3" label={{ value: legalLabel ?? 'Class limit', position: 'insideTopRight', fontSize: 11, fill: COLOURS.limit }} /> : null}
+        {legalLimit ? <ReferenceLine yAxisId="power" x={legalLimit} ifOverflow="extendDomain" stroke={COLOURS.limit} strokeDasharray="4 3" label={{ value: legalLabel ?? 'Class limit', position: 'insideBottomLeft', fontSize: 11, fill: COLOURS.limit }} /> : null}
       </ComposedChart>
       <figcaption className="mt-1 text-xs text-ink-muted">
         Mean of the samples in each {axes.speedUnit === 'mph' ? '1 mph' : '1 km/h'} speed step. Solid: power; dashed: torque. Filled dots mark peak power, rings peak torque (from the {SMOOTHING_WINDOW_S} s moving average).

@@ -41,8 +41,8 @@ export function dynoFile(p: DynoProfile): string {
     const power = torque * (kmh / 3.6 / r);
     lines.push(
       p.units === 'metric'
-        ? `${t.toFixed(2)},${kmh.toFixed(3)},${torque.toFixed(3)},${power.toFixed(1)}`
-        : `${t.toFixed(2)},${(kmh / 3.6 / MPH_MS).toFixed(3)},${(torque / LBF_FT_NM).toFixed(3)},${(power / HP_W).toFixed(4)}`,
+        ? `${t.toFixed(3)},${kmh.toFixed(3)},${torque.toFixed(3)},${power.toFixed(1)}`
+        : `${t.toFixed(3)},${(kmh / 3.6 / MPH_MS).toFixed(3)},${(torque / LBF_FT_NM).toFixed(3)},${(power / HP_W).toFixed(4)}`,
     );
   }
   return lines.join('\n') + '\n';

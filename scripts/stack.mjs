@@ -347,7 +347,7 @@ async function main() {
   await startChild('fakes', bin('tsx'), ['scripts/local-services.ts'], { ready: 'local services ready' });
 
   log('migrating and loading the demo scenario…');
-  run(bin('tsx'), ['scripts/migrate.ts'], { env: childEnv() });
+  run(bin('tsx'), ['--conditions=react-server', 'scripts/migrate.ts'], { env: childEnv() });
 
   if (testing) {
     const env = childEnv();

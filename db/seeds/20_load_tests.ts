@@ -1,4 +1,6 @@
 import { createHash, randomUUID } from 'node:crypto';
+import { driveStep } from './drive-claim';
+import { nextBrandSequence, nextClaimSequence } from '../sequences';
 import { HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { Knex } from 'knex';
 import sharp from 'sharp';
@@ -8,7 +10,7 @@ import { cleanPhoto } from '@/lib/files/photos';
 import type { TestConditions } from '@/lib/loadtest';
 import { analyseUpload, legalClassId, loadTestKindFor, type LoadTestSpec } from '@/lib/loadtest-evidence';
 import { BAR_PA } from '@/lib/units';
-import { initialClaimSnapshot, stepClaim, type ClaimEvent, type StoredClaim } from '@/machines/claim';
+import { initialClaimSnapshot, type Actor } from '@/machines/claim';
 import { assisted, dischargeFile, dynoFile } from './demo-load-test-files';
 
 // Claims whose load tests show the analysis at work: a weak drive unit waiting for a rep, a run
@@ -130,31 +132,6 @@ async function labelPhoto(text: string, sub: string): Promise<Buffer> {
 
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 
-async function nextSequence(knex: Knex, brandId: string, kind: 'claim' | 'rma', year: number): Promise<number> {
-  const { rows } = await knex.raw(
-    `INSERT INTO document_sequences (brand_id, kind, year, last_value) VALUES (?, ?, ?, 1)
-     ON CONFLICT (brand_id, kind, year) DO UPDATE SET last_value = document_sequences.last_value + 1 RETURNING last_value`,
-    [brandId, kind, year],
-  );
-  return rows[0].last_value;
-}
-
-/** One step through the machine, written as the step function writes it, with a back-dated time. */
-async function step(knex: Knex, claimId: string, event: Record<string, unknown> & { type: ClaimEvent['type']; actor: { id: string; role: string }; at: string }, columns: Record<string, unknown> = {}) {
-  const row = await knex('claims').where({ id: claimId }).forUpdate().first('state_value', 'context', 'version');
-  const stored: StoredClaim = { value: row.state_value, context: row.context };
-  const result = stepClaim(stored, event as unknown as ClaimEvent);
-  if (!result.ok) throw new Error(`demo ${event.type} refused: ${result.refusal}`);
-  await knex('claims').where({ id: claimId, version: row.version }).update({
-    state_value: JSON.stringify(result.stored.value), context: JSON.stringify(result.stored.context), version: row.version + 1, updated_at: event.at, ...columns,
-  });
-  const { type, actor, at, ...payload } = event;
-  await knex('claim_events').insert({
-    claim_id: claimId, actor_id: actor.id, actor_role: actor.role, event: type, from_state: JSON.stringify(result.from), to_state: JSON.stringify(result.to),
-    payload: JSON.stringify(payload), created_at: at,
-  });
-}
-
 export async function seed(knex: Knex): Promise<number> {
   const storage = s3();
   const bucket = env().S3_BUCKET;
@@ -166,7 +143,7 @@ export async function seed(knex: Knex): Promise<number> {
   }
   const put = (key: string, body: Buffer, contentType: string) => storage.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType }));
   const orgId = async (slug: string) => (await knex('organisations').where({ slug }).first('id')).id as string;
-  const person = async (email: string) => (await knex('users').where({ email }).first('id', 'role')) as { id: string; role: string };
+  const person = async (email: string) => (await knex('users').where({ email }).first('id', 'role')) as Actor;
   let added = 0;
 
   for (const s of SPECS) {
@@ -187,7 +164,7 @@ export async function seed(knex: Knex): Promise<number> {
       labor.push({ lineId: `l${i + 1}`, operationId: op.id, code, description: op.description, hours: String(op.standard_hours) });
     }
     const year = new Date(t0).getUTCFullYear();
-    const number = formatClaimNumber({ year, sequence: await nextSequence(knex, brandId, 'claim', year) });
+    const number = formatClaimNumber({ year, sequence: await nextClaimSequence(knex, year) });
     const initial = initialClaimSnapshot({ openedBy: { id: filer.id, role: filer.role as 'dealer' }, openedAt: at(0) });
     const [claim] = await knex('claims')
       .insert({
@@ -251,22 +228,22 @@ export async function seed(knex: Knex): Promise<number> {
     };
     await record('before', s.before, 0.4);
 
-    const dealer = { id: filer.id, role: filer.role };
-    await step(knex, claimId, { type: 'SUBMIT', actor: dealer, at: at(0.5), evidence: { photos: 2, serialLabelPhotos: 1, beforeTests: 1, proofOfPurchase: false, registered: true } }, { submitted_at: at(0.5) });
+    const dealer: Actor = { id: filer.id, role: filer.role };
+    await driveStep(knex, claimId, { type: 'SUBMIT', actor: dealer, at: at(0.5), evidence: { photos: 2, serialLabelPhotos: 1, beforeTests: 1, proofOfPurchase: false, registered: true } }, { submitted_at: at(0.5) });
     added += 1;
     if (s.until === 'submitted') continue;
 
     const rep = await person(s.rep);
     const warehouse = await person(s.warehouse);
-    await step(knex, claimId, { type: 'TAKE', actor: rep, at: at(20) });
-    const rma = formatRmaNumber({ year, sequence: await nextSequence(knex, brandId, 'rma', year) });
+    await driveStep(knex, claimId, { type: 'TAKE', actor: rep, at: at(20) });
+    const rma = formatRmaNumber({ year, sequence: await nextBrandSequence(knex, brandId, 'rma', year) });
     const lines = [{ lineId: 'p1', approved: true }, ...labor.map((l) => ({ lineId: l.lineId, approved: true }))];
-    await step(knex, claimId, { type: 'APPROVE', actor: rep, at: at(22), extent: 'full', lines, rmaNumber: rma }, { rma_number: rma });
-    await step(knex, claimId, { type: 'SHIP', actor: warehouse, at: at(40), carrier: 'Demo Parcel', trackingNumber: `DP${s.partSerial.replace(/\W/g, '')}` });
+    await driveStep(knex, claimId, { type: 'APPROVE', actor: rep, at: at(22), extent: 'full', lines, rmaNumber: rma }, { rma_number: rma, approved_lines: knex.raw('requested_lines') });
+    await driveStep(knex, claimId, { type: 'SHIP', actor: warehouse, at: at(40), carrier: 'Demo Parcel', trackingNumber: `DP${s.partSerial.replace(/\W/g, '')}` });
     if (s.until === 'shipped' || !s.after) continue;
 
     const after = await record('after', s.after, 90);
-    await step(knex, claimId, { type: 'MARK_FITTED', actor: dealer, at: at(90.2), afterTestId: after.runId, afterTestPasses: after.meets });
+    await driveStep(knex, claimId, { type: 'MARK_FITTED', actor: dealer, at: at(90.2), afterTestId: after.runId, afterTestPasses: after.meets });
   }
   return added;
 }

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { nextBrandSequence, nextClaimSequence } from '../sequences';
 import { formatClaimNumber, formatRmaNumber } from '../../lib/credits/document-numbers';
 import { initialClaimSnapshot, stepClaim, type ClaimEvent, type StoredClaim } from '../../machines/claim';
 
@@ -27,16 +28,6 @@ export type ApprovedClaimSpec = {
   /** Stop earlier in the lifecycle (for tests of steps refused before approval). */
   upTo?: 'submitted' | 'in_review' | 'approved';
 };
-
-async function nextSequence(trx: Knex, brandId: string, kind: 'claim' | 'rma', year: number): Promise<number> {
-  const { rows } = await trx.raw(
-    `INSERT INTO document_sequences (brand_id, kind, year, last_value) VALUES (?, ?, ?, 1)
-     ON CONFLICT (brand_id, kind, year) DO UPDATE SET last_value = document_sequences.last_value + 1
-     RETURNING last_value`,
-    [brandId, kind, year],
-  );
-  return rows[0].last_value;
-}
 
 // knex rows are untyped here.
 type Row = Record<string, any>;
@@ -72,9 +63,9 @@ export async function insertApprovedClaim(knex: Knex, spec: ApprovedClaimSpec): 
   const approvedAt = spec.approvedAt ?? new Date();
   const at = (hoursBefore: number) => new Date(approvedAt.getTime() - hoursBefore * 3_600_000).toISOString();
   const year = approvedAt.getUTCFullYear();
-  const number = formatClaimNumber({ year, sequence: await nextSequence(knex, brand.id, 'claim', year) });
+  const number = formatClaimNumber({ year, sequence: await nextClaimSequence(knex, year) });
   const upTo = spec.upTo ?? 'approved';
-  const rmaNumber = upTo === 'approved' ? formatRmaNumber({ year, sequence: await nextSequence(knex, brand.id, 'rma', year) }) : null;
+  const rmaNumber = upTo === 'approved' ? formatRmaNumber({ year, sequence: await nextBrandSequence(knex, brand.id, 'rma', year) }) : null;
 
   const dealerActor = { id: filer.id, role: filer.role };
   const repActor = { id: rep.id, role: rep.role };

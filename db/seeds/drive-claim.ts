@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { nextBrandSequence, nextClaimSequence } from '../sequences';
 import type { Knex } from 'knex';
 import { daysBetween } from '@/lib/calendar';
 import { localDate } from '@/lib/calendar/time-zone';
@@ -13,18 +14,6 @@ import { initialClaimSnapshot, stepClaim, type Actor, type ClaimContext, type Cl
 // the server's step function does, with back-dated times. For the demo scenario and for tests
 // that need a claim in a given state before the review and fulfilment screens exist.
 // Every step is checked by the machine; a refused step throws.
-
-async function nextSequence(knex: Knex, brandId: string, kind: 'claim' | 'rma' | 'credit_memo', year: number): Promise<number> {
-  const { rows } = await knex.raw(
-    `INSERT INTO document_sequences (brand_id, kind, year, last_value) VALUES (?, ?, ?, 1)
-     ON CONFLICT (brand_id, kind, year) DO UPDATE SET last_value = document_sequences.last_value + 1
-     RETURNING last_value`,
-    [brandId, kind, year],
-  );
-  return rows[0].last_value;
-}
-
-export { nextSequence as nextDocumentSequence };
 
 export type NewClaim = {
   dealerId: string;
@@ -64,7 +53,7 @@ export async function insertDraftClaim(knex: Knex, c: NewClaim): Promise<{ id: s
     labor.push({ lineId: `l${i + 1}`, operationId: op.id, code, description: op.description, hours: String(op.standard_hours) });
   }
   const year = Number(c.openedAt.slice(0, 4));
-  const number = formatClaimNumber({ year, sequence: await nextSequence(knex, c.brandId, 'claim', year) });
+  const number = formatClaimNumber({ year, sequence: await nextClaimSequence(knex, year) });
   const initial = initialClaimSnapshot({ openedBy: { id: c.openedBy, role: 'dealer' }, openedAt: c.openedAt });
   const [row] = await knex('claims')
     .insert({
@@ -146,7 +135,7 @@ export async function driveToCreditPending(knex: Knex, claimId: string, p: Path)
   const requested = claim.requested_lines as ClaimLines;
   const approved = p.approved ? p.approved(requested) : requested;
   const year = Number(t.slice(0, 4));
-  const rmaNumber = formatRmaNumber({ year, sequence: await nextSequence(knex, claim.brand_id, 'rma', year) });
+  const rmaNumber = formatRmaNumber({ year, sequence: await nextBrandSequence(knex, claim.brand_id, 'rma', year) });
   const lines = [
     ...requested.parts.map((l) => ({ lineId: l.lineId, approved: approved.parts.some((a) => a.lineId === l.lineId && a.quantity > 0) })),
     ...requested.labor.map((l) => ({ lineId: l.lineId, approved: approved.labor.some((a) => a.lineId === l.lineId && a.hours !== '0') })),
@@ -222,7 +211,7 @@ export async function issueCreditDirect(knex: Knex, claimId: string, accountantI
   const draft = computeCredit(input);
   const issuedOn = localDate(at, c.time_zone);
   const year = Number(issuedOn.slice(0, 4));
-  const number = formatCreditMemoNumber({ year, sequence: await nextSequence(knex, c.brand_id, 'credit_memo', year) });
+  const number = formatCreditMemoNumber({ year, sequence: await nextBrandSequence(knex, c.brand_id, 'credit_memo', year) });
   const hash = draftHash(draft);
   const [memo] = await knex('credit_memos')
     .insert({

@@ -192,16 +192,7 @@ export async function listEvents(claimId: string): Promise<ClaimEventRow[]> {
     .orderBy('e.id');
 }
 
-/** Next number in a brand's yearly series for claims, RMAs or credit memos. */
-export async function nextSequence(trx: Knex, brandId: string, kind: 'claim' | 'rma' | 'credit_memo', year: number): Promise<number> {
-  const { rows } = await trx.raw(
-    `INSERT INTO document_sequences (brand_id, kind, year, last_value) VALUES (?, ?, ?, 1)
-     ON CONFLICT (brand_id, kind, year) DO UPDATE SET last_value = document_sequences.last_value + 1
-     RETURNING last_value`,
-    [brandId, kind, year],
-  );
-  return rows[0].last_value;
-}
+export { nextBrandSequence, nextClaimSequence } from '@/db/sequences';
 
 export type OpenClaimOnSerial = { id: string; number: string; stage: string; dealerId: string };
 

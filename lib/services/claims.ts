@@ -6,7 +6,7 @@ import { missingEvidence, type EvidenceSummary } from '@/lib/claims/evidence';
 import { formatClaimNumber } from '@/lib/credits';
 import { evidenceCounts } from '@/lib/db/attachments';
 import { findModel, findPart, findRegisteredUnit, listLaborOperations } from '@/lib/db/catalog';
-import { findClaimForUser, insertClaim, insertEvent, nextSequence, openClaimsOnSerial, updateDraftClaim, type ClaimRecord, type ClaimRowInput, type RequestedLines } from '@/lib/db/claims';
+import { findClaimForUser, insertClaim, insertEvent, nextClaimSequence, openClaimsOnSerial, updateDraftClaim, type ClaimRecord, type ClaimRowInput, type RequestedLines } from '@/lib/db/claims';
 import { findDealerAccount } from '@/lib/db/dealer-accounts';
 import { countAnalysedRuns } from '@/lib/db/load-tests';
 import type { AppUser } from '@/lib/db/users';
@@ -76,7 +76,7 @@ export async function createDraft(user: AppUser, input: ClaimDraftInput): Promis
   return db().transaction(async (trx) => {
     const row = await resolveDraft(user, input, trx);
     const year = new Date().getUTCFullYear();
-    const number = formatClaimNumber({ year, sequence: await nextSequence(trx, row.brandId, 'claim', year) });
+    const number = formatClaimNumber({ year, sequence: await nextClaimSequence(trx, year) });
     const at = new Date().toISOString();
     const initial = initialClaimSnapshot({ openedBy: { id: user.id, role: user.role }, openedAt: at });
     const id = await insertClaim(trx, { ...row, number, stateValue: initial.value, context: initial.context, createdBy: user.id });

@@ -15,7 +15,7 @@ import {
 } from '@/lib/credits';
 import { draftHash } from '@/lib/credits/draft-hash';
 import { creditInputFromClaim, netLaborCredited } from '@/lib/credits/from-claim';
-import { findClaimForUser, nextSequence, type ClaimRecord } from '@/lib/db/claims';
+import { findClaimForUser, nextBrandSequence, type ClaimRecord } from '@/lib/db/claims';
 import { creditCatalog, creditTerms, listCreditQueue, type QueueQuery } from '@/lib/db/credit-inputs';
 import {
   draftEditsOf,
@@ -246,7 +246,7 @@ async function writeMemo(
 ): Promise<{ id: string; number: string }> {
   const terms = await creditTerms(claim, trx);
   const { issuedOn, year } = issueDate(at, terms.brandTimeZone);
-  const number = formatCreditMemoNumber({ year, sequence: await nextSequence(trx, claim.brandId, 'credit_memo', year) });
+  const number = formatCreditMemoNumber({ year, sequence: await nextBrandSequence(trx, claim.brandId, 'credit_memo', year) });
   const id = await insertMemo(trx, {
     ...draft, number, brandId: claim.brandId, dealerId: claim.dealerId, dealerAccountId: claim.dealerAccountId, claimId: claim.id,
     dealerAccountNumber: claim.accountNumber, claimNumber: claim.number, rmaNumber: claim.rmaNumber, issuedOn, issuedBy: user.id,

@@ -3,7 +3,7 @@ import { db } from '@/db/connection';
 import { DEALER_ROLES } from '@/lib/auth/roles';
 import { formatRmaNumber } from '@/lib/credits';
 import { listLaborOperations } from '@/lib/db/catalog';
-import { findClaimForUser, nextSequence } from '@/lib/db/claims';
+import { findClaimForUser, nextBrandSequence } from '@/lib/db/claims';
 import { appealDaysFor, messageWithKey, otherActiveReps, transactionNow } from '@/lib/db/review';
 import { dueOnWith, startedAtOf } from '@/lib/services/review-clock';
 import type { AppUser } from '@/lib/db/users';
@@ -100,7 +100,7 @@ export async function approveClaim(user: AppUser, claimId: string, input: Approv
       outcome = built;
       const year = new Date(ctx.at).getUTCFullYear();
       // Inside the step's transaction: a refused approval gives its number back.
-      const rmaNumber = formatRmaNumber({ year, sequence: await nextSequence(trx, claim.brandId, 'rma', year) });
+      const rmaNumber = formatRmaNumber({ year, sequence: await nextBrandSequence(trx, claim.brandId, 'rma', year) });
       return { extent: built.extent, lines: built.lines, rmaNumber, ...(input.message ? { message: input.message } : {}) };
     },
     columns: (_ctx, next) => ({

@@ -16,6 +16,8 @@ function wording(e: ClaimEventRow): string {
       return `Removed ${String(e.payload.fileName ?? 'a file')}`;
     case 'MESSAGE':
       return 'Message';
+    case 'RENUMBERED':
+      return `Claim renumbered from ${String(e.payload.from ?? '')} to ${String(e.payload.to ?? '')}`;
     case 'REPLACEMENT_DELIVERED':
       return 'Replacement delivered by the carrier';
     case 'CORE_PARCEL_DELIVERED':

@@ -1,5 +1,7 @@
 // Runs the Knex migrations, then loads the demo scenario (idempotent: a second run adds
 // nothing that is already there). The test database gets the same scenario.
+// Run it as `tsx --conditions=react-server scripts/migrate.ts`: demo sections call the app's own
+// services, whose `server-only` guard only loads under that condition.
 import { closeDb, db } from '../db/connection';
 import { loadDemo } from '../db/seeds/demo';
 

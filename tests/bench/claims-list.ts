@@ -106,7 +106,7 @@ async function ensureDatabase(url: string, reseed: boolean) {
   const exists = (await c.query('SELECT 1 FROM pg_database WHERE datname = $1', [name])).rowCount === 1;
   if (!exists) await c.query(`CREATE DATABASE "${name}"`);
   await c.end();
-  const r = spawnSync('npx', ['tsx', 'scripts/migrate.ts'], { cwd: ROOT, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8' });
+  const r = spawnSync('npx', ['tsx', '--conditions=react-server', 'scripts/migrate.ts'], { cwd: ROOT, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`migrate failed:\n${r.stderr}`);
   console.log(`  ${r.stdout.trim().split('\n').join('; ')}`);
 }

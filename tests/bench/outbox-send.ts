@@ -39,7 +39,7 @@ async function main() {
   if (!(await c.query('SELECT 1 FROM pg_database WHERE datname = $1', [database])).rowCount) await c.query(`CREATE DATABASE "${database}"`);
   await c.end();
   const root = process.cwd();
-  const migrated = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['scripts/migrate.ts'], { cwd: root, env: { ...process.env, DATABASE_URL: bench }, encoding: 'utf8' });
+  const migrated = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', 'scripts/migrate.ts'], { cwd: root, env: { ...process.env, DATABASE_URL: bench }, encoding: 'utf8' });
   if (migrated.status !== 0) throw new Error(`migrating ${database} failed:\n${migrated.stderr}`);
 
   const port = await sparePort();

@@ -35,7 +35,7 @@ export async function ensureReviewSeed(log: (s: string) => void = console.log): 
     }
   });
   const root = process.cwd(); // benchmarks run from the repository root
-  const migrated = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['scripts/migrate.ts'], { cwd: root, env: { ...process.env, DATABASE_URL: bench }, encoding: 'utf8' });
+  const migrated = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', 'scripts/migrate.ts'], { cwd: root, env: { ...process.env, DATABASE_URL: bench }, encoding: 'utf8' });
   if (migrated.status !== 0) throw new Error(`migrating ${database} failed:\n${migrated.stderr}`);
 
   await withClient(bench, async (c) => {

@@ -42,9 +42,13 @@ function fail(msg) {
   shutdown(1);
 }
 
+// Once Ctrl-C has been pressed, no later phase may start anything new.
+const halted = () => new Promise(() => {});
+
 function run(cmd, args, opts = {}) {
+  if (stopping) return;
   const r = spawnSync(cmd, args, { stdio: 'inherit', cwd: root, ...opts });
-  if (r.status !== 0) fail(`${cmd} ${args.join(' ')} exited with ${r.status ?? r.signal}`);
+  if (r.status !== 0 && !stopping) fail(`${cmd} ${args.join(' ')} exited with ${r.status ?? r.signal}`);
 }
 
 function quiet(cmd, args, opts = {}) {
@@ -247,6 +251,7 @@ function childEnv() {
 const bin = (name) => path.join(root, 'node_modules', '.bin', name);
 
 function startChild(name, cmd, args, { ready, env } = {}) {
+  if (stopping) return halted();
   const proc = spawn(cmd, args, { cwd: root, env: env ?? childEnv(), stdio: ['ignore', 'pipe', 'pipe'], detached: true });
   children.push({ name, proc, signal: 'SIGTERM', group: true });
   let resolveReady;
@@ -320,7 +325,7 @@ function build(distDir) {
   }
   log('building the app…');
   run(bin('next'), ['build'], { env: childEnv() });
-  fs.writeFileSync(stamp, want);
+  if (!stopping) fs.writeFileSync(stamp, want);
 }
 
 // ---------------------------------------------------------------- main

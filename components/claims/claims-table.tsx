@@ -35,6 +35,7 @@ const col = createColumnHelper<ClaimListRow>();
 export function ClaimsTable({ showDealer = false }: { showDealer?: boolean }) {
   const [rows, setRows] = useState<ClaimListRow[]>([]);
   const [total, setTotal] = useState(0);
+  const [capped, setCapped] = useState(false);
   const [page, setPage] = useState(1);
   const [stage, setStage] = useState('');
   const [q, setQ] = useState('');
@@ -61,9 +62,10 @@ export function ClaimsTable({ showDealer = false }: { showDealer?: boolean }) {
         if (!r.ok) throw new Error((await r.json()).error ?? 'Could not load the claims.');
         return r.json();
       })
-      .then((d: { rows: ClaimListRow[]; total: number }) => {
+      .then((d: { rows: ClaimListRow[]; total: number; totalCapped: boolean }) => {
         setRows(d.rows);
         setTotal(d.total);
+        setCapped(d.totalCapped);
         setError(null);
         setLoading(false);
       })
@@ -116,6 +118,8 @@ export function ClaimsTable({ showDealer = false }: { showDealer?: boolean }) {
   });
 
   const pages = Math.max(1, Math.ceil(total / pageSize));
+  // Past the count cap the last page is unknown: "Next" stays while pages come back full.
+  const lastPage = capped ? rows.length < pageSize : page >= pages;
 
   return (
     <div className="space-y-3">
@@ -191,16 +195,17 @@ export function ClaimsTable({ showDealer = false }: { showDealer?: boolean }) {
       </div>
       <div className="flex items-center justify-between text-sm text-ink-muted">
         <span>
-          {total} claim{total === 1 ? '' : 's'}
+          {total.toLocaleString('en-GB')}
+          {capped ? '+' : ''} claim{total === 1 && !capped ? '' : 's'}
         </span>
         <div className="flex items-center gap-2">
           <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
             Previous
           </Button>
           <span>
-            Page {page} of {pages}
+            Page {page} of {capped ? 'many' : pages}
           </span>
-          <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+          <Button variant="secondary" disabled={lastPage} onClick={() => setPage((p) => p + 1)}>
             Next
           </Button>
         </div>

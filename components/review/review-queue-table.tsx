@@ -182,6 +182,7 @@ export function ReviewQueueTable({ dealers, categories }: { dealers: Option[]; c
 
   const rows = data?.rows ?? [];
   const total = data?.total ?? 0;
+  const capped = data?.totalCapped ?? false;
   const table = useReactTable({
     data: rows,
     columns,
@@ -196,6 +197,8 @@ export function ReviewQueueTable({ dealers, categories }: { dealers: Option[]; c
     pageCount: Math.max(1, Math.ceil(total / pageSize)),
   });
   const pages = Math.max(1, Math.ceil(total / pageSize));
+  // Past the count cap the last page is unknown: "Next" stays while pages come back full.
+  const lastPage = capped ? rows.length < pageSize : page >= pages;
   const filter = (set: (v: string) => void) => (e: React.ChangeEvent<HTMLSelectElement | HTMLInputElement>) => {
     set(e.target.value);
     setPage(1);
@@ -295,16 +298,17 @@ export function ReviewQueueTable({ dealers, categories }: { dealers: Option[]; c
       </div>
       <div className="flex items-center justify-between text-sm text-ink-muted">
         <span>
-          {total} claim{total === 1 ? '' : 's'}
+          {total.toLocaleString('en-GB')}
+          {capped ? '+' : ''} claim{total === 1 && !capped ? '' : 's'}
         </span>
         <div className="flex items-center gap-2">
           <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
             Previous
           </Button>
           <span>
-            Page {page} of {pages}
+            Page {page} of {capped ? 'many' : pages}
           </span>
-          <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+          <Button variant="secondary" disabled={lastPage} onClick={() => setPage((p) => p + 1)}>
             Next
           </Button>
         </div>

@@ -1,6 +1,7 @@
 import 'server-only';
 import { db } from '@/db/connection';
 import { scopeClaims } from '@/lib/db/claims';
+import { cappedCount, type PageTotal } from '@/lib/db/paging';
 import type { AppUser } from '@/lib/db/users';
 import type { ClaimListQuery } from '@/lib/validation/claims';
 
@@ -49,7 +50,7 @@ function orderFor(query: ClaimListQuery) {
  * claims_dealer_stage_updated (dealer_id, stage, updated_at DESC, id DESC) for the count and
  * a single rare stage; claims_dealer_number and claims_dealer_failure for the other sorts.
  */
-export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<{ rows: ClaimListRow[]; total: number }> {
+export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<{ rows: ClaimListRow[] } & PageTotal> {
   const filtered = scopeClaims(db()('claims as c'), user);
   if (query.stage) filtered.whereIn('c.stage', query.stage.split(','));
   if (query.brand) filtered.where('c.brand_id', query.brand);
@@ -59,8 +60,8 @@ export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<
       w.whereILike('c.number', like).orWhereILike('c.frame_serial', like).orWhereILike('c.customer_name', like).orWhereILike('c.rma_number', like),
     );
   }
-  const [countRow, rows] = await Promise.all([
-    filtered.clone().count<{ count: string }[]>('c.id as count').first(),
+  const [counted, rows] = await Promise.all([
+    cappedCount(filtered),
     filtered
       .clone()
       .join('organisations as b', 'b.id', 'c.brand_id')
@@ -78,7 +79,7 @@ export async function listClaims(user: AppUser, query: ClaimListQuery): Promise<
       .offset((query.page - 1) * query.pageSize),
   ]);
   return {
-    total: Number(countRow?.count ?? 0),
+    ...counted,
     rows: rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString(), updatedAt: new Date(r.updatedAt).toISOString() })),
   };
 }

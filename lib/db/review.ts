@@ -1,4 +1,5 @@
 import 'server-only';
+import { cappedCount, type PageTotal } from '@/lib/db/paging';
 import type { Knex } from 'knex';
 import { db } from '@/db/connection';
 import { scopeClaims } from '@/lib/db/claims';
@@ -123,7 +124,7 @@ export async function listReviewQueue(
   f: ReviewQueueFilters,
   sort: { by: ReviewQueueSort; dir: 'asc' | 'desc' },
   page: { page: number; pageSize: number },
-): Promise<{ rows: ReviewQueueRow[]; total: number }> {
+): Promise<{ rows: ReviewQueueRow[] } & PageTotal> {
   const filtered = scopeClaims(db()('claims as c'), user);
   if (f.stages.length) filtered.whereIn('c.stage', f.stages);
   if (f.dealerId) filtered.where('c.dealer_id', f.dealerId);
@@ -145,7 +146,7 @@ export async function listReviewQueue(
     const like = `%${f.q.replace(/[%_\\]/g, (m) => `\\${m}`)}%`;
     filtered.where((w) => w.whereILike('c.number', like).orWhereILike('c.frame_serial', like).orWhereILike('c.part_serial', like));
   }
-  const count = filtered.clone().count<{ count: string }[]>('c.id as count').first();
+  const count = cappedCount(filtered);
   const listed = filtered
     .clone()
     .join('organisations as d', 'd.id', 'c.dealer_id')
@@ -164,10 +165,10 @@ export async function listReviewQueue(
     .orderBy([{ column: SORT_COLUMNS[sort.by], order: sort.dir, ...(sort.by === 'deadline' ? { nulls: 'last' as const } : {}) }, { column: 'c.id', order: sort.dir }])
     .limit(page.pageSize)
     .offset((page.page - 1) * page.pageSize);
-  const [countRow, rows] = await Promise.all([count, listed]);
+  const [counted, rows] = await Promise.all([count, listed]);
   const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
   return {
-    total: Number(countRow?.count ?? 0),
+    ...counted,
     rows: rows.map((r) => ({ ...r, submittedAt: iso(r.submittedAt), reviewStartedAt: iso(r.reviewStartedAt), updatedAt: iso(r.updatedAt)! })),
   };
 }

@@ -30,7 +30,7 @@ function brandSettings(brandId: string, now: Date) {
 
 export type QueueClock = { dueDate: string; businessDaysLeft: number; status: ClockStatus; isPaused: boolean; summary: string };
 export type ReviewQueueItem = ReviewQueueRow & { clock: QueueClock | null; canTake: boolean; canRelease: boolean };
-export type ReviewQueuePage = { rows: ReviewQueueItem[]; total: number; page: number; pageSize: number; today: string; dueSoonUntil: string; rule: string };
+export type ReviewQueuePage = { rows: ReviewQueueItem[]; total: number; totalCapped: boolean; page: number; pageSize: number; today: string; dueSoonUntil: string; rule: string };
 
 /**
  * The rep's queue: one page of the brand's claims from SQL, each with its review clock as of now
@@ -56,7 +56,7 @@ export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = 
 
   // Decided claims have no deadline: "by deadline" lists them latest change first.
   const sort = query.sort === 'deadline' && query.view === 'decided' ? { by: 'updated' as const, dir: 'desc' as const } : { by: query.sort, dir: query.dir };
-  const { rows, total } = await listReviewQueue(user, filters, sort, { page: query.page, pageSize: query.pageSize });
+  const { rows, total, totalCapped } = await listReviewQueue(user, filters, sort, { page: query.page, pageSize: query.pageSize });
   const clocked = rows.filter((r) => CLOCK_STAGES.has(r.stage) && r.reviewStartedAt);
   // Only an appeal this rep denied needs to know whether another rep could take it.
   const deniedByMe = rows.some((r) => r.stage === 'appealed' && r.deniedByRepId === user.id);
@@ -83,5 +83,5 @@ export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = 
       canRelease: r.stage === 'in_review' && r.assignedRepId === user.id,
     };
   });
-  return { rows: items, total, page: query.page, pageSize: query.pageSize, today, dueSoonUntil, rule: reviewRuleText(calendar) };
+  return { rows: items, total, totalCapped, page: query.page, pageSize: query.pageSize, today, dueSoonUntil, rule: reviewRuleText(calendar) };
 }

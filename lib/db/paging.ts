@@ -1,0 +1,18 @@
+import 'server-only';
+import type { Knex } from 'knex';
+import { db } from '@/db/connection';
+
+/**
+ * Tables count their rows up to a cap: exact for any real shop or brand desk, and cheap for a
+ * very large one, which reads "1,000+" instead of paying for a full count on every page.
+ */
+export const COUNT_CAP = 1000;
+
+export type PageTotal = { total: number; totalCapped: boolean };
+
+export async function cappedCount(filtered: Knex.QueryBuilder, cap = COUNT_CAP): Promise<PageTotal> {
+  const inner = filtered.clone().clearSelect().clearOrder().select(db().raw('1')).limit(cap + 1);
+  const row = await db().count<{ n: string }[]>('* as n').from(inner.as('capped')).first();
+  const n = Number(row?.n ?? 0);
+  return { total: Math.min(n, cap), totalCapped: n > cap };
+}

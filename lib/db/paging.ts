@@ -2,11 +2,9 @@ import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/connection';
 
-/**
- * Tables count their rows up to a cap: exact for any real shop or brand desk, and cheap for a
- * very large one, which reads "1,000+" instead of paying for a full count on every page.
- */
-export const COUNT_CAP = 1000;
+import { COUNT_CAP } from '@/lib/paging';
+
+export { COUNT_CAP };
 
 export type PageTotal = { total: number; totalCapped: boolean };
 

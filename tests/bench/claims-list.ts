@@ -28,6 +28,7 @@
  * The EXPLAIN of every shape is printed below the figures, with the indexes each plan uses.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { COUNT_CAP } from '../../lib/paging';
 import fs from 'node:fs';
 import os from 'node:os';
 import http from 'node:http';
@@ -75,10 +76,13 @@ async function serveBare(port: number, url: string) {
         const shape = shapes[Number(new URL(req.url ?? '/', 'http://x').searchParams.get('shape'))];
         if (!shape) throw new Error('unknown shape');
         const results = await Promise.all(shape.queries.map((q) => pool.query(q.sql, q.bindings)));
-        const countResult = results.find((r) => r.fields.length === 1 && r.fields[0]!.name === 'count')!;
+        // The capped count (lib/db/paging.ts) is the one single-column result named n.
+        const countResult = results.find((r) => r.fields.length === 1 && r.fields[0]!.name === 'n')!;
         const rowsResult = results.find((r) => r !== countResult)!;
+        const counted = Number(countResult.rows[0]?.n ?? 0);
         const body = JSON.stringify({
-          total: Number(countResult.rows[0]?.count ?? 0),
+          total: Math.min(counted, COUNT_CAP),
+          totalCapped: counted > COUNT_CAP,
           rows: rowsResult.rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString(), updatedAt: new Date(r.updatedAt).toISOString() })),
         });
         res.writeHead(200, { 'content-type': 'application/json' });

@@ -89,7 +89,8 @@ function toClaim(r: Record<string, unknown>): ClaimRecord {
  */
 export function scopeClaims<T extends Knex.QueryBuilder>(q: T, user: Pick<AppUser, 'orgKind' | 'organisationId'>, alias = 'c'): T {
   if (user.orgKind === 'dealer') return q.where(`${alias}.dealer_id`, user.organisationId) as T;
-  return q.where(`${alias}.brand_id`, user.organisationId).whereNot(`${alias}.stage`, 'draft') as T;
+  // Submitted ever, not merely "not a draft": a draft withdrawn before submission never reached the brand.
+  return q.where(`${alias}.brand_id`, user.organisationId).whereNotNull(`${alias}.submitted_at`) as T;
 }
 
 export async function findClaimForUser(user: AppUser, id: string, q: Knex = db(), lock = false): Promise<ClaimRecord | null> {
@@ -208,8 +209,8 @@ export async function openClaimsOnSerial(
     .select('id', 'number', 'stage', 'dealer_id as dealerId')
     .where({ brand_id: brandId })
     .whereNotIn('stage', ['withdrawn', 'denied', 'credited', 'reconciled'])
-    // Another shop's draft is its own unfinished work, not a claim anyone else should see.
-    .where((w) => w.whereNot('stage', 'draft').orWhere('dealer_id', viewer.dealerId ?? '00000000-0000-0000-0000-000000000000'))
+    // Another shop's unsubmitted claim is its own unfinished work, not a claim anyone else should see.
+    .where((w) => w.whereNotNull('submitted_at').orWhere('dealer_id', viewer.dealerId ?? '00000000-0000-0000-0000-000000000000'))
     .where((w) => {
       if (serials.frameSerial) w.orWhereRaw('lower(frame_serial) = lower(?)', [serials.frameSerial]);
       if (serials.partSerial) w.orWhereRaw(`part_serial <> '' AND lower(part_serial) = lower(?)`, [serials.partSerial]);

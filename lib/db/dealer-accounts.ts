@@ -33,7 +33,7 @@ export type BrandDealerRow = DealerAccount & { city: string; country: string; cl
 /** The brand's dealers with where they are and how many claims they have sent. */
 export async function brandDealerList(brandId: string, q: Knex = db()): Promise<BrandDealerRow[]> {
   return base(q)
-    .select([...columns, 'd.city', 'd.country', q.raw(`(SELECT count(*)::int FROM claims c WHERE c.dealer_account_id = a.id AND c.stage <> 'draft') AS claims`)])
+    .select([...columns, 'd.city', 'd.country', q.raw(`(SELECT count(*)::int FROM claims c WHERE c.dealer_account_id = a.id AND c.submitted_at IS NOT NULL) AS claims`)])
     .where('a.brand_id', brandId)
     .orderBy('d.name');
 }

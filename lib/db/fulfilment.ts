@@ -143,7 +143,7 @@ export async function findClaimIdByRma(user: AppUser, rmaNumber: string): Promis
     (await db()('claims')
       .select('id', 'number', 'stage', 'core_step as coreStep')
       .where({ brand_id: user.organisationId, rma_number: rmaNumber })
-      .whereNot('stage', 'draft')
+      .whereNotNull('submitted_at')
       .first()) ?? null
   );
 }

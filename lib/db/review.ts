@@ -181,7 +181,7 @@ export type DealerHistoryCounts = { filed: number; open: number; approved: numbe
 export async function dealerHistoryCounts(brandId: string, dealerId: string, q: Knex = db()): Promise<DealerHistoryCounts> {
   const row = await q('claims')
     .where({ brand_id: brandId, dealer_id: dealerId })
-    .whereNot('stage', 'draft')
+    .whereNotNull('submitted_at')
     .first(
       q.raw('count(*)::int as filed'),
       q.raw(`count(*) FILTER (WHERE stage IN ('submitted', 'in_review', 'waiting_on_dealer', 'appealed'))::int as open`),
@@ -209,7 +209,7 @@ export async function claimsOnSameSerials(
     .join('organisations as d', 'd.id', 'c.dealer_id')
     .select('c.id', 'c.number', 'c.stage', 'd.name as dealerName', 'c.frame_serial as frameSerial', 'c.part_serial as partSerial', 'c.submitted_at as submittedAt')
     .where('c.brand_id', brandId)
-    .whereNot('c.stage', 'draft')
+    .whereNotNull('c.submitted_at')
     .whereNot('c.id', excludeId)
     .where((w) => {
       w.whereRaw('lower(c.frame_serial) = lower(?)', [serials.frameSerial]);

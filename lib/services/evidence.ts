@@ -67,6 +67,17 @@ export async function arrivedBytes(intent: UploadIntent): Promise<{ ok: true; by
   return { ok: true, bytes };
 }
 
+/**
+ * Where checked evidence lives: a key the browser was never given. The presigned PUT stays
+ * valid for a while on the upload key, so keeping the file there would let it be swapped after
+ * the checks (or a photo's metadata put back).
+ */
+export function sealedKeyFor(uploadKey: string): string {
+  const name = uploadKey.split('/').pop() ?? 'file';
+  const claim = uploadKey.split('/')[1] ?? 'unknown';
+  return `evidence/${claim}/${randomUUID()}/${name}`;
+}
+
 export type RecordedAttachment = { id: string; kind: AttachmentKind; fileName: string; contentType: string; sizeBytes: number; sha256: string };
 
 /**
@@ -112,6 +123,8 @@ export async function completeUpload(user: AppUser, claimId: string, intentId: s
 
     let storedBytes = bytes;
     let thumbnailKey: string | null = null;
+    const storageKey = sealedKeyFor(intent.storageKey);
+    cleanup.push(storageKey);
     if (PHOTO_KINDS.includes(intent.kind)) {
       let cleaned;
       try {
@@ -120,24 +133,26 @@ export async function completeUpload(user: AppUser, claimId: string, intentId: s
         return await refuse(`${intent.fileName} could not be read as a photo; it may be damaged.`);
       }
       storedBytes = cleaned.photo;
-      await putObject(intent.storageKey, cleaned.photo, sniffed.mime);
-      thumbnailKey = `${intent.storageKey}.thumb.webp`;
+      thumbnailKey = `${storageKey}.thumb.webp`;
       cleanup.push(thumbnailKey);
       await putObject(thumbnailKey, cleaned.thumbnail, 'image/webp');
     }
+    await putObject(storageKey, storedBytes, sniffed.mime);
     const storedSha = createHash('sha256').update(storedBytes).digest('hex');
 
-    return await db().transaction(async (trx) => {
+    const recorded = await db().transaction(async (trx) => {
       const locked = await findClaimForUser(user, claim.id, trx, true);
       if (!locked) throw new NotFoundError('No such claim.');
       assertMayAttach(user, locked, intent.kind);
       const id = await insertAttachment(trx, {
-        claimId: claim.id, kind: intent.kind, storageKey: intent.storageKey, thumbnailKey, fileName: intent.fileName,
+        claimId: claim.id, kind: intent.kind, storageKey, thumbnailKey, fileName: intent.fileName,
         contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha, uploadedBy: user.id,
       });
       await logClaimNote(trx, user, locked, 'EVIDENCE_ADDED', { attachmentId: id, kind: intent.kind, fileName: intent.fileName, sha256: storedSha });
       return { id, kind: intent.kind, fileName: intent.fileName, contentType: sniffed.mime!, sizeBytes: storedBytes.length, sha256: storedSha };
     });
+    await deleteObject(intent.storageKey).catch(() => {});
+    return recorded;
   } catch (err) {
     if (!(err instanceof ValidationError)) await Promise.allSettled(cleanup.map((k) => deleteObject(k)));
     throw err;

@@ -29,8 +29,8 @@ import {
 } from '@/lib/loadtest-evidence';
 import { applyStep, logClaimNote, type StepOutcome } from '@/lib/services/claim-steps';
 import { notifyBrandRole, notifyDealer } from '@/lib/services/claim-notify';
-import { assertMayAttach, arrivedBytes } from '@/lib/services/evidence';
-import { deleteObject } from '@/lib/storage/s3';
+import { assertMayAttach, arrivedBytes, sealedKeyFor } from '@/lib/services/evidence';
+import { deleteObject, putObject } from '@/lib/storage/s3';
 import type { UnitSystem } from '@/lib/units';
 
 export type LoadTestRequest = {
@@ -185,6 +185,9 @@ export async function addLoadTest(user: AppUser, claimId: string, req: LoadTestR
   const analysed = result;
   const runId = randomUUID();
   const sha256 = createHash('sha256').update(bytes).digest('hex');
+  // The analysed bytes move to a key the browser never had, so the file cannot change afterwards.
+  const storageKey = sealedKeyFor(intent.storageKey);
+  await putObject(storageKey, bytes, 'text/csv');
   const recorded = await db().transaction(async (trx) => {
     if (!(await lockUploadIntent(trx, intent.id))) throw new ConflictError(`${intent.fileName} was added already.`);
     const locked = await findClaimForUser(user, claim.id, trx, true);
@@ -193,7 +196,7 @@ export async function addLoadTest(user: AppUser, claimId: string, req: LoadTestR
     if (nowWrong) throw new ConflictError(nowWrong, { stage: locked.stage, replacementStep: locked.replacementStep });
     assertMayAttach(user, locked, intent.kind);
     const attachmentId = await insertAttachment(trx, {
-      claimId: claim.id, kind: intent.kind, storageKey: intent.storageKey, thumbnailKey: null, fileName: intent.fileName,
+      claimId: claim.id, kind: intent.kind, storageKey, thumbnailKey: null, fileName: intent.fileName,
       contentType: 'text/csv', sizeBytes: bytes.length, sha256, uploadedBy: user.id,
     });
     await insertLoadTestRun(trx, {
@@ -211,9 +214,11 @@ export async function addLoadTest(user: AppUser, claimId: string, req: LoadTestR
     return { attachmentId };
   }).catch(async (err) => {
     // A repeated request for a file already recorded must not remove the recorded file.
+    await deleteObject(storageKey).catch(() => {});
     if (!(err instanceof ConflictError && /added already/.test(err.message))) await discard();
     throw err;
   });
+  await deleteObject(intent.storageKey).catch(() => {});
 
   return {
     status: 'stored', runId, attachmentId: recorded.attachmentId, phase, meetsSpec: analysed.verdict.meets,

@@ -145,6 +145,20 @@ describe('photos are stored without their metadata', () => {
     expect(att.sha256).not.toBe(sha256(original));
   });
 
+  it('the upload link cannot change a file once it is checked: a second PUT on it leaves the evidence as recorded', async () => {
+    const original = await labelPhoto('SN DU85-SWAP', { withGps: true });
+    const r = await upload(claimId, { kind: 'photo', fileName: 'swap.jpg', bytes: original });
+    expect(r.complete?.status).toBe(200);
+    const att = await db()('attachments').where({ id: r.complete!.body.id }).first();
+    expect(att.storage_key).not.toContain(r.ticket.body.intentId);
+    expect(att.storage_key.startsWith('evidence/')).toBe(true);
+    // The presigned link is still within its time; whatever it accepts now is not the evidence.
+    await fetch(r.ticket.body.url, { method: 'PUT', headers: r.ticket.body.headers, body: new Uint8Array(original) });
+    const stored = await getObjectBytes(att.storage_key);
+    expect(sha256(stored)).toBe(att.sha256);
+    expect((await sharp(stored).metadata()).exif).toBeUndefined();
+  });
+
   it('a load-test CSV is stored byte for byte as uploaded', async () => {
     const csv = Buffer.from(dynoCsv({ peakW: 300 }));
     const r = await upload(claimId, { kind: 'load_test_before', fileName: 'dyno.csv', bytes: csv });

@@ -279,7 +279,10 @@ describe('conditions, mapping and refusals', () => {
     expect([a.status, b.status].filter((s) => s === 201)).toHaveLength(1);
     expect([404, 409]).toContain([a.status, b.status].find((s) => s !== 201));
     expect(await runsOf(claim.id)).toHaveLength(1);
-    expect(await headObject(put.storageKey!)).not.toBeNull();
+    // The recorded file lives under its own key (the upload key is spent); it survived the loser.
+    const recorded = await db()('attachments').where({ claim_id: claim.id, kind: 'load_test_before' }).first('storage_key');
+    expect(recorded.storage_key).not.toBe(put.storageKey);
+    expect(await headObject(recorded.storage_key)).not.toBeNull();
 
     // Once submitted, no new before-test can be added by the dealer.
     await attachPhotos(claim.id, claim.user.id);

@@ -1,7 +1,7 @@
 import 'server-only';
 import bcrypt from 'bcryptjs';
 import { afterFailure, lockedMessage, lockRemainingMinutes } from '@/lib/auth/throttle';
-import { clearThrottle, getThrottle, saveThrottle } from '@/lib/db/signin-throttle';
+import { clearThrottle, getThrottle, recordFailure } from '@/lib/db/signin-throttle';
 import { findUserForSignIn, type AppUser } from '@/lib/db/users';
 
 export const WRONG_CREDENTIALS = 'That e-mail and password do not match an account. Check both and try again.';
@@ -23,8 +23,7 @@ export async function verifyCredentials(emailInput: string, password: string, no
   const found = await findUserForSignIn(email);
   const matches = await bcrypt.compare(password, found?.passwordHash ?? DUMMY_HASH);
   if (!found || !found.passwordHash || !matches) {
-    const next = afterFailure(throttle, now);
-    await saveThrottle(email, next);
+    const next = await recordFailure(email, now, (row) => afterFailure(row, now));
     if (next.lockedUntil) return { ok: false, message: lockedMessage(lockRemainingMinutes(next, now)) };
     return { ok: false, message: WRONG_CREDENTIALS };
   }

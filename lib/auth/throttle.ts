@@ -14,6 +14,8 @@ export function lockRemainingMinutes(row: ThrottleRow | null, now: Date): number
 
 /** The row after one more failure at `now`. */
 export function afterFailure(row: ThrottleRow | null, now: Date): ThrottleRow {
+  // A failure during a lock (a guess already in flight when it began) keeps the lock as it is.
+  if (row?.lockedUntil && row.lockedUntil > now) return row;
   const windowOpen = row && now.getTime() - row.windowStartedAt.getTime() < WINDOW_MINUTES * 60_000;
   const failures = windowOpen ? row.failures + 1 : 1;
   const windowStartedAt = windowOpen ? row.windowStartedAt : now;

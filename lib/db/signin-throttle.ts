@@ -10,11 +10,24 @@ export async function getThrottle(email: string): Promise<ThrottleRow | null> {
   return row ?? null;
 }
 
-export async function saveThrottle(email: string, row: ThrottleRow): Promise<void> {
-  await db()('signin_throttle')
-    .insert({ email: email.toLowerCase(), failures: row.failures, window_started_at: row.windowStartedAt, locked_until: row.lockedUntil })
-    .onConflict('email')
-    .merge();
+/**
+ * Counts one failed sign-in under a row lock, so guesses sent in parallel each count (read,
+ * then write, without the lock would let them all write the same "one more").
+ */
+export async function recordFailure(emailInput: string, now: Date, next: (row: ThrottleRow | null) => ThrottleRow): Promise<ThrottleRow> {
+  const email = emailInput.toLowerCase();
+  return db().transaction(async (trx) => {
+    await trx('signin_throttle').insert({ email, failures: 0, window_started_at: now, locked_until: null }).onConflict('email').ignore();
+    const row = (await trx('signin_throttle')
+      .select('failures', 'window_started_at as windowStartedAt', 'locked_until as lockedUntil')
+      .where({ email })
+      .forUpdate()
+      .first()) as ThrottleRow;
+    // A row just created for this failure has nothing to carry over.
+    const updated = next(row.failures === 0 && !row.lockedUntil ? null : row);
+    await trx('signin_throttle').where({ email }).update({ failures: updated.failures, window_started_at: updated.windowStartedAt, locked_until: updated.lockedUntil });
+    return updated;
+  });
 }
 
 export async function clearThrottle(email: string): Promise<void> {

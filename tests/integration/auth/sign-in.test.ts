@@ -45,6 +45,18 @@ describe('sign-in', () => {
     expect(await db()('signin_throttle').where({ email }).first()).toBeUndefined();
   });
 
+  it('guesses sent in parallel each count: the lock still engages', async () => {
+    const email = 'jonas.weber@kettenblatt.test';
+    await db()('signin_throttle').where({ email }).delete();
+    const results = await Promise.all(Array.from({ length: MAX_FAILURES + 3 }, (_, i) => verifyCredentials(email, `parallel-wrong-${i}`)));
+    expect(results.every((r) => !r.ok)).toBe(true);
+    const row = await db()('signin_throttle').where({ email }).first();
+    expect(row.locked_until).not.toBeNull();
+    const right = await verifyCredentials(email, DEMO_PASSWORD);
+    expect(right.ok).toBe(false);
+    await db()('signin_throttle').where({ email }).delete();
+  });
+
   it('refuses a disabled account with its own message', async () => {
     const email = 'maya.lindqvist@tidewheel.test';
     await db()('users').where({ email }).update({ disabled_at: db().fn.now() });

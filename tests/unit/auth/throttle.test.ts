@@ -19,6 +19,14 @@ describe('sign-in throttle', () => {
     expect(lockRemainingMinutes(row, plus(MAX_FAILURES + LOCK_MINUTES))).toBe(0);
   });
 
+  it('a failure while locked keeps the lock (it neither lifts nor restarts it)', () => {
+    let row = null;
+    for (let i = 1; i <= MAX_FAILURES; i++) row = afterFailure(row, plus(i));
+    const locked = row!;
+    expect(afterFailure(locked, plus(MAX_FAILURES + 1))).toEqual(locked);
+    expect(lockRemainingMinutes(afterFailure(locked, plus(MAX_FAILURES + 1)), plus(MAX_FAILURES + 1))).toBe(LOCK_MINUTES - 1);
+  });
+
   it('starts counting afresh once the window has passed', () => {
     let row = afterFailure(null, t0);
     for (let i = 0; i < MAX_FAILURES - 2; i++) row = afterFailure(row, plus(1));

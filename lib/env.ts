@@ -6,11 +6,16 @@ const bool = z
   .union([z.boolean(), z.string()])
   .transform((v) => (typeof v === 'boolean' ? v : ['1', 'true', 'yes', 'on'].includes(v.toLowerCase())));
 
-export const envSchema = z.object({
+const LOCAL_AUTH_SECRET = 'loadproof-local-secret-change-me-in-production';
+const LOCAL_S3_KEY = 'S3RVER';
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '::1', '[::1]']);
+
+const schema = z.object({
   DATABASE_URL: z.url().default('postgres://loadproof@127.0.0.1:54329/loadproof'),
   APP_URL: z.url().default('http://127.0.0.1:3000'),
-  AUTH_SECRET: z.string().min(16).default('loadproof-local-secret-change-me-in-production'),
-  LOADPROOF_LOCAL: bool.default(true),
+  AUTH_SECRET: z.string().min(16).default(LOCAL_AUTH_SECRET),
+  /** Local mode (fakes, Mailbox page). Unset: local exactly when APP_URL is on loopback. */
+  LOADPROOF_LOCAL: bool.optional(),
 
   S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
   S3_REGION: z.string().min(1).default('us-east-1'),
@@ -33,6 +38,18 @@ export const envSchema = z.object({
   /** How often the worker asks the carrier about parcels on their way. */
   CARRIER_POLL_SECONDS: z.coerce.number().int().min(1).max(86400).default(15),
 });
+
+// Outside local mode the well-known local defaults are refused: a forgotten AUTH_SECRET would
+// let anyone who knows it forge a session for any user.
+export const envSchema = schema
+  .transform((e) => ({ ...e, LOADPROOF_LOCAL: e.LOADPROOF_LOCAL ?? LOOPBACK.has(new URL(e.APP_URL).hostname) }))
+  .superRefine((e, ctx) => {
+    if (e.LOADPROOF_LOCAL) return;
+    if (e.AUTH_SECRET === LOCAL_AUTH_SECRET) ctx.addIssue({ code: 'custom', path: ['AUTH_SECRET'], message: 'set a long random secret of your own outside local mode' });
+    if (e.S3_ACCESS_KEY_ID === LOCAL_S3_KEY || e.S3_SECRET_ACCESS_KEY === LOCAL_S3_KEY) {
+      ctx.addIssue({ code: 'custom', path: ['S3_ACCESS_KEY_ID'], message: 'the local storage fake’s keys are refused outside local mode' });
+    }
+  });
 
 export type Env = z.infer<typeof envSchema>;
 

@@ -16,8 +16,10 @@ export function mailTransport(): Transporter {
     // on a loaded two-core machine (tests/bench/outbox-send.ts); 8 reached about 120.
     maxConnections: 16,
     maxMessages: Infinity,
-    // The local catcher has no TLS; a real server gets STARTTLS when it offers it.
-    ignoreTLS: e.LOADPROOF_LOCAL,
+    // The local catcher has no TLS; a real server gets STARTTLS when it offers it, and
+    // credentials never go out without it.
+    ignoreTLS: e.LOADPROOF_LOCAL && !e.SMTP_USER,
+    requireTLS: !!e.SMTP_USER && !e.SMTP_SECURE,
     connectionTimeout: 5_000,
     greetingTimeout: 5_000,
     // Well inside the outbox lease (120 s): a send that hangs fails and is retried, and can never

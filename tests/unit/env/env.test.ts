@@ -11,11 +11,27 @@ describe('environment parsing', () => {
   });
 
   it('takes real services from variables', () => {
-    const e = parseEnv({ DATABASE_URL: 'postgres://u:p@db.internal:5432/lp', SMTP_PORT: '587', SMTP_SECURE: 'true', LOADPROOF_LOCAL: '0' });
+    const e = parseEnv({
+      DATABASE_URL: 'postgres://u:p@db.internal:5432/lp', SMTP_PORT: '587', SMTP_SECURE: 'true', LOADPROOF_LOCAL: '0',
+      AUTH_SECRET: 'a-long-random-secret-of-our-own', S3_ACCESS_KEY_ID: 'AKIA-REAL', S3_SECRET_ACCESS_KEY: 'real-secret',
+    });
     expect(e.DATABASE_URL).toBe('postgres://u:p@db.internal:5432/lp');
     expect(e.SMTP_PORT).toBe(587);
     expect(e.SMTP_SECURE).toBe(true);
     expect(e.LOADPROOF_LOCAL).toBe(false);
+  });
+
+  it('is local exactly when the app is served on loopback, unless told', () => {
+    expect(parseEnv({ APP_URL: 'http://localhost:3000' }).LOADPROOF_LOCAL).toBe(true);
+    const real = { APP_URL: 'https://claims.example.org', AUTH_SECRET: 'a-long-random-secret-of-our-own', S3_ACCESS_KEY_ID: 'K', S3_SECRET_ACCESS_KEY: 'S' };
+    expect(parseEnv(real).LOADPROOF_LOCAL).toBe(false);
+    expect(parseEnv({ ...real, LOADPROOF_LOCAL: '1' }).LOADPROOF_LOCAL).toBe(true);
+  });
+
+  it('outside local mode refuses the well-known local secret and storage keys, naming the variable', () => {
+    expect(() => parseEnv({ APP_URL: 'https://claims.example.org', S3_ACCESS_KEY_ID: 'K', S3_SECRET_ACCESS_KEY: 'S' })).toThrow(/AUTH_SECRET/);
+    expect(() => parseEnv({ APP_URL: 'https://claims.example.org', AUTH_SECRET: 'a-long-random-secret-of-our-own' })).toThrow(/S3_ACCESS_KEY_ID/);
+    expect(() => parseEnv({ LOADPROOF_LOCAL: '0' })).toThrow(/AUTH_SECRET/);
   });
 
   it('treats an empty variable as unset', () => {

@@ -229,7 +229,10 @@ class Replayed extends AppError {
   }
 }
 
-const issueKey = (claimId: string, hash: string) => `issue:${claimId}:${hash}`;
+// The key carries how many memos of the claim were reversed so far: after a reversal the same
+// draft must issue a new memo, never replay the reversed one.
+const issueKey = (claimId: string, hash: string, reversals: number) => `issue:${claimId}:${reversals}:${hash}`;
+const reversalsOf = async (claimId: string) => (await memosOfClaim(claimId)).filter((m) => m.reversesMemoId).length;
 
 function issueDate(at: string, timeZone: string): { issuedOn: string; year: number } {
   const issuedOn = localDate(at, timeZone);
@@ -272,7 +275,7 @@ function memoNotice(claim: ClaimRecord, number: string, draft: CreditMemoDraft, 
 export async function issueCredit(user: AppUser, claimId: string, draftHashSeen: string, expectedVersion?: number): Promise<IssueOutcome> {
   requireAccountant(user);
   if (!/^[0-9a-f]{64}$/.test(draftHashSeen)) throw new ValidationError('Open the credit again and issue it from there.', { draftHash: ['Missing or malformed.'] });
-  const key = issueKey(claimId, draftHashSeen);
+  const key = issueKey(claimId, draftHashSeen, await reversalsOf(claimId));
   try {
     const { outcome, memo } = await issueOnce(user, claimId, draftHashSeen, key, expectedVersion);
     return { ...outcome, memoId: memo.id, memoNumber: memo.number, totalMinor: memo.totalMinor, replayed: false };

@@ -237,6 +237,21 @@ describe('an issued memo is never edited: corrections are new memos', () => {
     expect(await memoCount(claim.id)).toBe(3);
   });
 
+  it('after a reversal the unchanged draft issues a new memo instead of replaying the reversed one', async () => {
+    const claim = await claimFor();
+    const user = await accountant();
+    const { hash } = await draftOf(claim.id);
+    const first = await issueCredit(user, claim.id, hash);
+    await reverseMemo(user, first.memoId, 'Issued to the wrong account by mistake');
+    expect((await draftOf(claim.id)).hash).toBe(hash); // nothing changed in the draft itself
+    const again = await issueCredit(user, claim.id, hash);
+    expect(again).toMatchObject({ replayed: false, totalMinor: first.totalMinor, stage: 'credited' });
+    expect(again.memoId).not.toBe(first.memoId);
+    expect(await memoCount(claim.id)).toBe(3);
+    // And that one replays as usual.
+    await expect(issueCredit(user, claim.id, hash)).resolves.toMatchObject({ memoId: again.memoId, replayed: true });
+  });
+
   it('a chargeback memo after the credit: the part at dealer net and the labor credited; not twice', async () => {
     const claim = await claimFor();
     const user = await accountant();

@@ -3,6 +3,7 @@ import { redirect } from 'next/navigation';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { Notice } from '@/components/ui/notice';
 import { HOME_PATH } from '@/lib/auth/roles';
+import { safeNextPath } from '@/lib/auth/safe-next';
 import { currentUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = { title: 'Sign in' };
@@ -11,8 +12,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   const user = await currentUser();
   if (user) redirect(HOME_PATH[user.role]);
   const { next, error, welcome, email } = await searchParams;
-  // Only same-site paths: never bounce a user to another host after sign-in.
-  const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : undefined;
+  const safeNext = safeNextPath(next);
   return (
     <>
       <h1>Sign in</h1>

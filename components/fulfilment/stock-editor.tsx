@@ -36,7 +36,7 @@ function AdjustForm({ line, onDone }: { line: StockLine; onDone: () => void }) {
         className="space-y-2"
         onSubmit={(e) => {
           e.preventDefault();
-          void post('POST', { delta: Number(delta), reason, note });
+          void post('POST', { delta: Number(delta), reason, note, expectedOnHand: line.onHand });
         }}
       >
         <p className="text-sm font-bold">Change the quantity</p>

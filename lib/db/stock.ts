@@ -98,11 +98,16 @@ export async function takeStock(trx: Knex, m: { brandId: string; partId: string;
 }
 
 /** An adjustment with a reason; refused (null) when it would take the level below zero. */
-export async function adjustStock(trx: Knex, m: { brandId: string; partId: string; delta: number; reason: string; note: string; userId: string }): Promise<number | null> {
+export async function adjustStock(
+  trx: Knex,
+  m: { brandId: string; partId: string; delta: number; reason: string; note: string; userId: string; expectedOnHand?: number },
+): Promise<number | null> {
   await ensureRow(trx, m.brandId, m.partId);
-  const rows = await trx('stock_levels')
+  const q = trx('stock_levels')
     .where({ brand_id: m.brandId, part_id: m.partId })
-    .whereRaw('on_hand + ? >= 0', [m.delta])
+    .whereRaw('on_hand + ? >= 0', [m.delta]);
+  if (m.expectedOnHand !== undefined) q.where('on_hand', m.expectedOnHand);
+  const rows = await q
     .update({ on_hand: trx.raw('on_hand + ?', [m.delta]), updated_at: trx.fn.now() })
     .returning('on_hand');
   const after = rows[0]?.on_hand;

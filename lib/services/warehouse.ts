@@ -55,7 +55,13 @@ export async function adjustPartStock(user: AppUser, partId: string, body: unkno
   return db().transaction(async (trx) => {
     const part = await findStockPart(user.organisationId, partId, trx);
     if (!part) throw new NotFoundError('No such part in your catalog.');
-    const after = await adjustStock(trx, { brandId: user.organisationId, partId, delta: input.delta, reason: input.reason, note: input.note, userId: user.id });
+    if (input.expectedOnHand !== undefined && input.expectedOnHand !== part.onHand) {
+      throw new ConflictError(`${part.partNumber} now shows ${part.onHand} on hand, not ${input.expectedOnHand}: someone changed it (or this change was already saved). Nothing was changed; check the level and enter the change again.`, { onHand: part.onHand });
+    }
+    const after = await adjustStock(trx, { brandId: user.organisationId, partId, delta: input.delta, reason: input.reason, note: input.note, userId: user.id, expectedOnHand: input.expectedOnHand });
+    if (after === null && input.expectedOnHand !== undefined) {
+      throw new ConflictError(`${part.partNumber} changed while saving; nothing was changed. Check the level and enter the change again.`, { onHand: part.onHand });
+    }
     if (after === null) {
       throw new ConflictError(`Only ${part.onHand} of ${part.partNumber} on hand; removing ${-input.delta} would go below zero. Nothing was changed.`, { onHand: part.onHand });
     }

@@ -64,6 +64,8 @@ export const stockAdjustmentSchema = z.object({
   delta: z.coerce.number({ error: 'Enter a whole number, like 5 or -2.' }).int('Whole parts only.').min(-10000).max(10000),
   reason: z.enum(ADJUSTMENT_REASONS, { error: 'Choose a reason.' }),
   note: z.string().trim().max(500).default(''),
+  /** The level the user saw; a different current level means someone (or a retry) got there first. */
+  expectedOnHand: z.number().int().min(0).optional(),
 });
 
 export const restockDateSchema = z.object({

@@ -35,6 +35,19 @@ describe('stock adjustments', () => {
     await expect(db()('stock_movements').where({ id: log[0]!.id }).update({ delta: 50 })).rejects.toThrow(/append-only/);
   });
 
+  it('a delivery booked twice (a retry, a second tab) counts once when the level the user saw is sent', async () => {
+    const partId = await setStock('torvane', 'TV-DPC2', 3);
+    await actAs(WAREHOUSE);
+    const body = { delta: 4, reason: 'delivery_received', note: 'Batch 26-51', expectedOnHand: 3 };
+    const [a, b] = await Promise.all([adjust(partId, body), adjust(partId, body)]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    expect(await onHand(partId)).toBe(7);
+    const again = await adjust(partId, body);
+    expect(again.status).toBe(409);
+    expect(JSON.stringify(again.data)).toMatch(/now shows 7 on hand, not 3/);
+    expect(await onHand(partId)).toBe(7);
+  });
+
   it('refuses what makes no sense, and leaves the level as it was', async () => {
     const partId = await setStock('torvane', 'TV-DPC2', 1);
     await actAs(WAREHOUSE);

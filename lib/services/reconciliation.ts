@@ -230,7 +230,11 @@ export async function confirmMatch(user: AppUser, matchId: string): Promise<{ re
   if (reconciles) {
     await applyStep(user, claim.id, 'RECONCILE', { statementLineRef }, {
       prepare: async ({ trx }) => {
-        await decide(trx);
+        // Under the claim's lock (which a reversal takes too): the memo may have been reversed since it was read.
+        const locked = await decide(trx);
+        if (locked.memoReversed) {
+          throw new ConflictError(`${locked.memoNumber} was reversed a moment ago; a reversed memo does not reconcile the claim. Nothing changed.`);
+        }
         return {};
       },
       after: async ({ trx }) => write(trx),

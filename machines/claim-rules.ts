@@ -97,7 +97,7 @@ export const EVENT_RULES: Record<ClaimEventType, EventRule> = {
       if (context.appealsUsed >= 1) return 'A denial can be appealed once; this claim was appealed already.';
       if (context.appealOpenUntil === null) return 'This denial has no appeal window.';
       if (at !== undefined && time(at) > time(context.appealOpenUntil)) {
-        return `The appeal window closed on ${context.appealOpenUntil.slice(0, 10)}.`;
+        return `The appeal window closed on ${context.appealOpenUntil.slice(0, 16).replace('T', ' at ')} UTC.`;
       }
       return null;
     },

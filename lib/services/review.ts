@@ -1,6 +1,8 @@
 import 'server-only';
 import { db } from '@/db/connection';
 import { DEALER_ROLES } from '@/lib/auth/roles';
+import { organisationTimeZone } from '@/lib/db/organisations';
+import { formatDateTime } from '@/lib/format/dates';
 import { formatRmaNumber } from '@/lib/credits';
 import { listLaborOperations } from '@/lib/db/catalog';
 import { findClaimForUser, nextBrandSequence } from '@/lib/db/claims';
@@ -130,7 +132,9 @@ export async function denyClaim(user: AppUser, claimId: string, input: { reasonC
     prepare: async ({ trx, claim, at }) => ({ appealOpenUntil: appealWindowEnd(at, await appealDaysFor(claim.brandId, claim.partCategory, trx)) }),
     columns: () => ({ review_due_on: null }),
     after: async ({ trx, claim }, next) => {
-      const until = next.context.appealOpenUntil ? next.context.appealOpenUntil.slice(0, 10) : null;
+      // Said in the shop's own time, to the minute: a bare UTC date would read a day late in the evening west of Greenwich.
+      const tz = await organisationTimeZone(claim.dealerId, trx);
+      const until = next.context.appealOpenUntil ? `${formatDateTime(next.context.appealOpenUntil, tz)} (${tz} time)` : null;
       await notifyDealer(trx, claim, {
         kind: 'denied',
         title: `Claim ${claim.number} denied: ${DENIAL_REASON_LABELS[input.reasonCode].toLowerCase()}`,

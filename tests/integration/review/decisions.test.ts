@@ -319,7 +319,7 @@ describe('denying and appealing', () => {
     await db()('claims').where({ id: c.id }).update({ context: db().raw(`jsonb_set(context, '{appealOpenUntil}', '"2026-01-10T12:00:00.000Z"')`) });
     const before = await snapshot(c.id);
     const r = await step(DEALER, c.id, { type: 'APPEAL', version: before.version, message: 'Please look again' });
-    expect(r).toMatchObject({ status: 409, body: { error: 'The appeal window closed on 2026-01-10.', stage: 'denied' } });
+    expect(r).toMatchObject({ status: 409, body: { error: 'The appeal window closed on 2026-01-10 at 12:00 UTC.', stage: 'denied' } });
     expect(await snapshot(c.id)).toEqual(before);
   });
 

@@ -53,7 +53,7 @@ describe('explainRefusal: the example sentences', () => {
       [s.deny(PEOPLE.rep1, '2026-03-14T23:59:59Z'), 'denied'],
     ]);
     const late = { type: 'APPEAL', actor: PEOPLE.dealer, at: '2026-03-20T10:00:00Z', message: 'Late' } as const;
-    expect(explainRefusal(snap, late)).toBe('The appeal window closed on 2026-03-14.');
+    expect(explainRefusal(snap, late)).toBe('The appeal window closed on 2026-03-14 at 23:59 UTC.');
     const twice = at((s) => [...inReview(s), [s.deny(), 'denied'], [s.appeal(), 'appealed'], [s.take(PEOPLE.rep2), 'in_review'], [s.deny(PEOPLE.rep2), 'denied']]);
     expect(explainRefusal(twice.snap, twice.s.appeal())).toBe('A denial can be appealed once; this claim was appealed already.');
     void s;

@@ -259,7 +259,7 @@ describe('denials and appeals', () => {
     expect(snap.can({ ...base, at: '2026-03-15T00:00:00.000Z' })).toBe(false);
     // Same instant written with another offset: still inside.
     expect(snap.can({ ...base, at: '2026-03-15T01:59:59.000+02:00' })).toBe(true);
-    expect(explainRefusal(snap, { ...base, at: '2026-03-15T08:00:00.000Z' })).toBe('The appeal window closed on 2026-03-14.');
+    expect(explainRefusal(snap, { ...base, at: '2026-03-15T08:00:00.000Z' })).toBe('The appeal window closed on 2026-03-14 at 23:59 UTC.');
   });
 });
 

@@ -48,7 +48,8 @@ export function ClaimForm({
   const [v, setV] = useState<ClaimFormValues>(
     initial ?? {
       brandId: options.length === 1 ? options[0]!.brandId : '', frameSerial: '', modelId: '', saleDate: '', partId: '', partSerial: '',
-      failureDate: new Date().toISOString().slice(0, 10), odometerKm: null, batteryCycles: '', symptom: '', errorCodes: '',
+      // The shop's own today, not UTC's: an evening in Portland is already tomorrow in UTC.
+      failureDate: new Date().toLocaleDateString('en-CA'), odometerKm: null, batteryCycles: '', symptom: '', errorCodes: '',
       description: '', customerName: '', customerEmail: '', customerPhone: '', parts: [], labor: [], freight: '',
     },
   );

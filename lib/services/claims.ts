@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/db/connection';
+import { localDate } from '@/lib/calendar';
 import { missingDetails } from '@/lib/claims/completeness';
 import { missingEvidence, type EvidenceSummary } from '@/lib/claims/evidence';
 import { formatClaimNumber } from '@/lib/credits';
@@ -32,6 +33,10 @@ async function resolveDraft(user: AppUser, input: ClaimDraftInput, q: Knex): Pro
   const part = input.partId ? await findPart(input.brandId, input.partId, q) : null;
   if (input.partId && !part) throw new ValidationError('Unknown part.', { partId: ['Choose a part of this brand.'] });
 
+  const today = localDate(new Date().toISOString(), user.timeZone);
+  if (input.failureDate && input.failureDate > today) {
+    throw new ValidationError('The failure date is in the future.', { failureDate: [`Today is ${today} where you are; the failure cannot be later.`] });
+  }
   // A registered sale date is the brand's record; the dealer's date applies only without one.
   const saleDate = unit?.retailSaleDate ?? input.saleDate ?? null;
   if (saleDate && input.failureDate && saleDate > input.failureDate) {

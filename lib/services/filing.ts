@@ -1,4 +1,5 @@
 import 'server-only';
+import { localDate } from '@/lib/calendar';
 import { assessCoverage, CoverageInputError, type CoverageAssessment, type ExclusionCode, type PartCategory } from '@/lib/coverage';
 import { currentPrices, findPolicy, findRegisteredUnit, listLaborOperations, listModels, listParts } from '@/lib/db/catalog';
 import { openClaimsOnSerial, type ClaimRecord } from '@/lib/db/claims';
@@ -9,7 +10,7 @@ import { NotFoundError } from '@/lib/errors';
 /** What the new-claim form needs: each brand the shop sells, with its catalog. */
 export async function filingOptions(user: AppUser) {
   const accounts = await dealerAccounts(user.organisationId);
-  const today = new Date().toISOString().slice(0, 10);
+  const today = localDate(new Date().toISOString(), user.timeZone);
   return Promise.all(
     accounts.map(async (a) => {
       const [models, parts, labor, prices] = await Promise.all([

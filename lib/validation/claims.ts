@@ -38,7 +38,8 @@ export const claimDraftSchema = z
     freight: z.string().trim().regex(/^\d{0,6}([.,]\d{1,2})?$/, 'Freight as an amount, like 18.50.').default(''),
   })
   .refine((v) => !v.saleDate || !v.failureDate || v.saleDate <= v.failureDate, { path: ['saleDate'], message: 'The sale date is after the failure date.' })
-  .refine((v) => !v.failureDate || v.failureDate <= new Date().toISOString().slice(0, 10), { path: ['failureDate'], message: 'The failure date is in the future.' });
+  // "Future" here means after today anywhere on Earth (UTC+14); the server then checks the shop's own date.
+  .refine((v) => !v.failureDate || v.failureDate <= new Date(Date.now() + 14 * 3600_000).toISOString().slice(0, 10), { path: ['failureDate'], message: 'The failure date is in the future.' });
 
 export type ClaimDraftInput = z.infer<typeof claimDraftSchema>;
 

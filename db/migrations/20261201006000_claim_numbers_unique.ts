@@ -2,8 +2,8 @@ import type { Knex } from 'knex';
 
 // Claim numbers become unique across the installation (they were per brand, so a shop filing
 // with two brands could hold two claims with one number). Existing duplicates keep the number
-// on their earliest claim; the others get fresh numbers, and each renumbering is logged on the
-// claim's timeline.
+// on their earliest claim; the others get fresh numbers, their memos follow, and each
+// renumbering is logged on the claim's timeline.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('claim_number_sequences', (t) => {
     t.integer('year').primary();
@@ -28,6 +28,11 @@ export async function up(knex: Knex): Promise<void> {
     const seq = String(rows[0].last_value).padStart(6, '0');
     const number = `WC-${year}-${seq}-${luhn(`${year}${seq}`)}`;
     await knex('claims').where({ id: d.id }).update({ number });
+    // Memos carry the claim number they were issued under; statement matching reads it, so the
+    // renumbered claim's memos follow (the one sanctioned change to those append-only rows).
+    await knex.raw('ALTER TABLE credit_memos DISABLE TRIGGER credit_memos_no_update');
+    await knex('credit_memos').where({ claim_id: d.id }).update({ claim_number: number });
+    await knex.raw('ALTER TABLE credit_memos ENABLE TRIGGER credit_memos_no_update');
     const state = (await knex('claims').where({ id: d.id }).first('state_value')).state_value;
     await knex('claim_events').insert({
       claim_id: d.id, actor_id: null, actor_role: 'system', event: 'RENUMBERED',

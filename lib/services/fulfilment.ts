@@ -205,7 +205,8 @@ export async function shipReplacement(user: AppUser, claimId: string, body: unkn
     dangerousGoods: parcel.batteries.map((b) => declarationOf(b.line.partNumber, b.classification, false)),
     trackingNumber: manualNumber,
     handover: 'collection',
-    idempotencyKey: `ship:${claim.id}:${claim.version}`,
+    // What is booked is part of the key: two different requests at one version are two bookings, never one shared.
+    idempotencyKey: `ship:${claim.id}:${claim.version}:${input.carrier}:${input.service}:${manualNumber ?? ''}:${parcel.toShip.map((l) => `${l.lineId}x${l.quantity}`).join(',')}`,
   });
 
   const lines: ShipmentLine[] = parcel.toShip.map((l) => ({ lineId: l.lineId, partId: l.partId, partNumber: l.partNumber, name: l.name, quantity: l.quantity }));
@@ -300,7 +301,7 @@ export async function issueReturnLabel(user: AppUser, claimId: string, body: unk
     parcels: [{ weightKg: part?.weightKg ?? 1, description: `Core ${part?.partNumber ?? ''} ${claim.partSerial}`.trim() }],
     dangerousGoods: classification ? [declarationOf(part!.partNumber, classification, input.packagingConfirmed === true)] : [],
     handover: 'drop_off',
-    idempotencyKey: `label:${claim.id}:${claim.version}`,
+    idempotencyKey: `label:${claim.id}:${claim.version}:${input.carrier}:${input.service}:${input.packagingConfirmed === true ? 'packed' : 'plain'}`,
   });
 
   const dg: StoredBatteryClass[] | null = classification && part ? [storedClass(part.partNumber, 1, classification)] : null;

@@ -60,6 +60,8 @@ export function ClaimForm({
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [message, setMessage] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
+  // One key per form: a double click or a retry finds the draft already made.
+  const [clientKey] = useState(() => crypto.randomUUID());
 
   const brand = options.find((o) => o.brandId === v.brandId);
   const part = brand?.parts.find((p) => p.id === v.partId);
@@ -109,6 +111,7 @@ export function ClaimForm({
       batteryCycles: v.batteryCycles === '' ? null : v.batteryCycles,
       labor: v.labor.map((operationId) => ({ operationId })),
       version,
+      clientKey: claimId ? undefined : clientKey,
     };
     const res = await fetch(claimId ? `/api/claims/${claimId}` : '/api/claims', {
       method: claimId ? 'PATCH' : 'POST',

@@ -128,12 +128,20 @@ function toRow(c: ClaimRowInput) {
 
 export async function insertClaim(
   trx: Knex,
-  c: ClaimRowInput & { number: string; stateValue: unknown; context: unknown; createdBy: string },
+  c: ClaimRowInput & { number: string; stateValue: unknown; context: unknown; createdBy: string; clientKey?: string },
 ): Promise<string> {
   const [r] = await trx('claims')
-    .insert({ ...toRow(c), number: c.number, state_value: JSON.stringify(c.stateValue), context: JSON.stringify(c.context), created_by: c.createdBy })
+    .insert({
+      ...toRow(c), number: c.number, state_value: JSON.stringify(c.stateValue), context: JSON.stringify(c.context), created_by: c.createdBy,
+      client_key: c.clientKey ?? null,
+    })
     .returning('id');
   return r.id;
+}
+
+/** The draft a dealer's form already made under this key, if any. */
+export async function findDraftByClientKey(dealerId: string, clientKey: string, q: Knex = db()): Promise<{ id: string; number: string } | null> {
+  return (await q('claims').where({ dealer_id: dealerId, client_key: clientKey }).first('id', 'number')) ?? null;
 }
 
 /** Only a draft's details change in place; everything after submission goes through steps. */

@@ -43,6 +43,15 @@ export async function markInvitationAccepted(trx: Knex, id: string, userId: stri
   await trx('invitations').where({ id }).update({ accepted_at: trx.fn.now(), accepted_user_id: userId });
 }
 
+export async function pendingInvitationFor(organisationId: string, email: string): Promise<boolean> {
+  return !!(await db()('invitations')
+    .where({ organisation_id: organisationId })
+    .whereRaw('lower(email) = lower(?)', [email])
+    .whereNull('accepted_at')
+    .where('expires_at', '>', db().fn.now())
+    .first('id'));
+}
+
 export async function pendingInvitations(organisationId: string) {
   return db()('invitations as i')
     .join('organisations as o', 'o.id', 'i.organisation_id')

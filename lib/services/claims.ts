@@ -7,7 +7,7 @@ import { missingEvidence, type EvidenceSummary } from '@/lib/claims/evidence';
 import { formatClaimNumber } from '@/lib/credits';
 import { evidenceCounts } from '@/lib/db/attachments';
 import { findModel, findPart, findRegisteredUnit, listLaborOperations } from '@/lib/db/catalog';
-import { findClaimForUser, insertClaim, insertEvent, nextClaimSequence, openClaimsOnSerial, updateDraftClaim, type ClaimRecord, type ClaimRowInput, type RequestedLines } from '@/lib/db/claims';
+import { findClaimForUser, findDraftByClientKey, insertClaim, insertEvent, nextClaimSequence, openClaimsOnSerial, updateDraftClaim, type ClaimRecord, type ClaimRowInput, type RequestedLines } from '@/lib/db/claims';
 import { findDealerAccount } from '@/lib/db/dealer-accounts';
 import { countAnalysedRuns } from '@/lib/db/load-tests';
 import type { AppUser } from '@/lib/db/users';
@@ -78,16 +78,29 @@ async function resolveDraft(user: AppUser, input: ClaimDraftInput, q: Knex): Pro
 
 export async function createDraft(user: AppUser, input: ClaimDraftInput): Promise<{ id: string; number: string }> {
   if (!isDealer(user)) throw new ForbiddenError('Only a dealer files claims.');
-  return db().transaction(async (trx) => {
-    const row = await resolveDraft(user, input, trx);
-    const year = new Date().getUTCFullYear();
-    const number = formatClaimNumber({ year, sequence: await nextClaimSequence(trx, year) });
-    const at = new Date().toISOString();
-    const initial = initialClaimSnapshot({ openedBy: { id: user.id, role: user.role }, openedAt: at });
-    const id = await insertClaim(trx, { ...row, number, stateValue: initial.value, context: initial.context, createdBy: user.id });
-    await insertEvent(trx, { claimId: id, actorId: user.id, actorRole: user.role, event: 'OPENED', fromState: null, toState: initial.value, payload: { number } });
-    return { id, number };
-  });
+  if (input.clientKey) {
+    const made = await findDraftByClientKey(user.organisationId, input.clientKey);
+    if (made) return made;
+  }
+  try {
+    return await db().transaction(async (trx) => {
+      const row = await resolveDraft(user, input, trx);
+      const year = new Date().getUTCFullYear();
+      const number = formatClaimNumber({ year, sequence: await nextClaimSequence(trx, year) });
+      const at = new Date().toISOString();
+      const initial = initialClaimSnapshot({ openedBy: { id: user.id, role: user.role }, openedAt: at });
+      const id = await insertClaim(trx, { ...row, number, stateValue: initial.value, context: initial.context, createdBy: user.id, clientKey: input.clientKey });
+      await insertEvent(trx, { claimId: id, actorId: user.id, actorRole: user.role, event: 'OPENED', fromState: null, toState: initial.value, payload: { number } });
+      return { id, number };
+    });
+  } catch (err) {
+    // Two requests with one key at the same moment: the second finds the first's draft.
+    if (input.clientKey && (err as { constraint?: string }).constraint === 'claims_client_key') {
+      const made = await findDraftByClientKey(user.organisationId, input.clientKey);
+      if (made) return made;
+    }
+    throw err;
+  }
 }
 
 export async function updateDraft(user: AppUser, claimId: string, version: number, input: ClaimDraftInput): Promise<void> {

@@ -3,7 +3,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import { db } from '@/db/connection';
 import { invitableRoles, isAdminRole, ROLE_LABELS, roleFitsKind } from '@/lib/auth/roles';
-import { findInvitationByTokenHash, insertInvitation, insertInvitedUser, markInvitationAccepted } from '@/lib/db/invitations';
+import { findInvitationByTokenHash, insertInvitation, pendingInvitationFor, insertInvitedUser, markInvitationAccepted } from '@/lib/db/invitations';
 import { queueMail } from '@/lib/db/notifications';
 import { emailTaken, setUserDisabled, type AppUser } from '@/lib/db/users';
 import { env } from '@/lib/env';
@@ -24,6 +24,9 @@ export async function inviteUser(admin: AppUser, input: InviteInput): Promise<{ 
   }
   if (await emailTaken(input.email)) {
     throw new ValidationError('Someone already uses that e-mail.', { email: ['This e-mail already has an account.'] });
+  }
+  if (await pendingInvitationFor(admin.organisationId, input.email)) {
+    throw new ValidationError('This person is invited already.', { email: ['An invitation to this e-mail is still open; it stays valid until it expires.'] });
   }
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + INVITATION_DAYS * 24 * 3600 * 1000);

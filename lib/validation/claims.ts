@@ -35,6 +35,7 @@ export const claimDraftSchema = z
     customerPhone: z.string().trim().max(40).default(''),
     parts: z.array(requestedPartSchema).max(10).default([]),
     labor: z.array(requestedLaborSchema).max(10).default([]),
+    clientKey: z.string().regex(/^[A-Za-z0-9-]{8,64}$/).optional(),
     freight: z.string().trim().regex(/^\d{0,6}([.,]\d{1,2})?$/, 'Freight as an amount, like 18.50.').default(''),
   })
   .refine((v) => !v.saleDate || !v.failureDate || v.saleDate <= v.failureDate, { path: ['saleDate'], message: 'The sale date is after the failure date.' })

@@ -23,3 +23,17 @@ describe('claim numbers', () => {
     await expect(db()('claims').where({ id: made[1]!.id }).update({ number: dup })).rejects.toThrow(/claims_number_unique/);
   });
 });
+
+describe('the new-claim form sent twice', () => {
+  it('one form key makes one draft, also when both requests arrive at once', async () => {
+    const userId = (await actAs('rita.vance@lanternhill.test'))!;
+    const rita = (await findActiveUser(userId))!;
+    const brandId = await orgId('torvane');
+    const frameSerial = `KEY-${tag()}`;
+    const input = { brandId, frameSerial, clientKey: crypto.randomUUID(), parts: [], labor: [], partSerial: '', symptom: '', errorCodes: '', description: '', customerName: '', customerEmail: '', customerPhone: '', freight: '' };
+    const [a, b] = await Promise.all([createDraft(rita, input), createDraft(rita, input)]);
+    const c = await createDraft(rita, input);
+    expect(new Set([a.id, b.id, c.id]).size).toBe(1);
+    expect(await db()('claims').where({ frame_serial: frameSerial }).count('id as n').first()).toMatchObject({ n: 1 });
+  });
+});

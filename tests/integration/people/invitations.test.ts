@@ -150,3 +150,15 @@ describe('switching accounts off', () => {
     expect((await db()('users').where({ id: rita }).first()).disabled_at).toBeNull();
   });
 });
+
+describe('inviting the same person twice', () => {
+  it('while the first invitation is open, a second is refused and no second mail goes out', async () => {
+    await actAs('rita.vance@lanternhill.test');
+    const email = fresh();
+    expect(await inviteAction(undefined, form({ name: 'Twice Asked', email, role: 'dealer' }))).toMatchObject({ ok: true });
+    const before = await counts();
+    const again = await inviteAction(undefined, form({ name: 'Twice Asked', email: email.toUpperCase(), role: 'dealer' }));
+    expect(again?.fieldErrors?.email?.[0]).toMatch(/still open/);
+    expect(await counts()).toEqual(before);
+  });
+});

@@ -47,8 +47,11 @@ export async function findLoadTestRun(claimId: string, id: string, q: Knex = db(
 }
 
 /** Before-tests that analysed: what the evidence summary counts. */
-export async function countAnalysedRuns(claimId: string, phase: LoadTestPhase, q: Knex = db()): Promise<number> {
-  const r = await q('load_test_runs').where({ claim_id: claimId, phase }).count<{ n: string }[]>('id as n').first();
+/** Runs that analysed, judged against the given part (a run judged for another part does not count). */
+export async function countAnalysedRuns(claimId: string, phase: LoadTestPhase, q: Knex = db(), partNumber?: string | null): Promise<number> {
+  const query = q('load_test_runs').where({ claim_id: claimId, phase });
+  if (partNumber) query.whereRaw(`spec->>'partNumber' = ?`, [partNumber]);
+  const r = await query.count<{ n: string }[]>('id as n').first();
   return Number(r?.n ?? 0);
 }
 

@@ -116,14 +116,15 @@ export async function updateDraft(user: AppUser, claimId: string, version: numbe
   });
 }
 
-export async function evidenceSummaryFor(claim: Pick<ClaimRecord, 'id' | 'registeredUnitId'>, q: Knex = db()): Promise<EvidenceSummary> {
+export async function evidenceSummaryFor(claim: Pick<ClaimRecord, 'id' | 'registeredUnitId' | 'partNumber'>, q: Knex = db()): Promise<EvidenceSummary> {
   const c = await evidenceCounts(claim.id, q);
   const serialLabelPhotos = c.serial_label_photo ?? 0;
   return {
     photos: (c.photo ?? 0) + serialLabelPhotos,
     serialLabelPhotos,
-    // Only a before-test that analysed counts; a load-test file is recorded only with its analysis.
-    beforeTests: await countAnalysedRuns(claim.id, 'before', q),
+    // Only a before-test that analysed counts, judged against the part the claim now names (the
+    // failed part can still change in a draft); a load-test file is recorded only with its analysis.
+    beforeTests: await countAnalysedRuns(claim.id, 'before', q, claim.partNumber),
     proofOfPurchase: (c.proof_of_purchase ?? 0) > 0,
     registered: claim.registeredUnitId !== null,
   };

@@ -24,7 +24,9 @@ export async function insertAnalysedLoadTest(
   opts: { phase?: 'before' | 'after'; peakW?: number; spec?: LoadTestSpec } = {},
 ): Promise<{ runId: string; attachmentId: string; meetsSpec: boolean }> {
   const phase = opts.phase ?? 'before';
-  const spec: LoadTestSpec = opts.spec ?? { kind: 'dyno', minWheelPowerW: 300, minWheelTorqueNm: 24, legalClass: 'eu-pedelec', partNumber: null };
+  // Judged against the claim's own failed part, as the load-test route judges it.
+  const part = await db()('claims as c').leftJoin('parts as p', 'p.id', 'c.part_id').where('c.id', claimId).first('p.part_number as partNumber');
+  const spec: LoadTestSpec = opts.spec ?? { kind: 'dyno', minWheelPowerW: 300, minWheelTorqueNm: 24, legalClass: 'eu-pedelec', partNumber: part?.partNumber ?? null };
   const bytes = Buffer.from(sweepCsv(opts.peakW));
   const conditions = {
     batterySocStartPct: 100, tyreSize: '57-622', measuredCircumferenceMm: null, tyrePressurePa: 400_000, tyreMaxPressurePa: 400_000,

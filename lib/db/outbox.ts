@@ -3,7 +3,10 @@ import { db } from '@/db/connection';
 
 export type OutboxMail = { id: number; messageId: string; to: string; subject: string; text: string; html: string | null; attempts: number };
 
-const LEASE_SECONDS = 120;
+// Longer than the slowest possible batch (200 mails over 16 connections at the 30 s send
+// timeout ≈ 6.5 min), so a lease never runs out while its mail is still being sent; a worker that
+// dies holds its leased mail back for at most this long.
+const LEASE_SECONDS = 15 * 60;
 
 /**
  * Leases up to `limit` due mails. SKIP LOCKED plus the lease lets several workers run

@@ -78,6 +78,13 @@ export async function organisationEmails(organisationId: string): Promise<Set<st
     .select(db().raw('lower(email) as email'))
     .from('users')
     .where({ organisation_id: organisationId })
-    .union((q) => q.select(db().raw('lower(email)')).from('invitations').where({ organisation_id: organisationId }));
+    .union((q) =>
+      q
+        .select(db().raw('lower(i.email)'))
+        .from('invitations as i')
+        .where({ 'i.organisation_id': organisationId })
+        // An address invited once but now someone's account elsewhere is no longer ours to read.
+        .whereNotExists((w) => w.select(1).from('users as u').whereRaw('lower(u.email) = lower(i.email)').whereNot('u.organisation_id', organisationId)),
+    );
   return new Set(rows.map((r: { email: string }) => r.email));
 }

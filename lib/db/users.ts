@@ -84,7 +84,7 @@ export async function organisationEmails(organisationId: string): Promise<Set<st
         .from('invitations as i')
         .where({ 'i.organisation_id': organisationId })
         // An address invited once but now someone's account elsewhere is no longer ours to read.
-        .whereNotExists((w) => w.select(1).from('users as u').whereRaw('lower(u.email) = lower(i.email)').whereNot('u.organisation_id', organisationId)),
+        .whereNotExists((w) => w.select(db().raw('1')).from('users as u').whereRaw('lower(u.email) = lower(i.email)').whereNot('u.organisation_id', organisationId)),
     );
   return new Set(rows.map((r: { email: string }) => r.email));
 }

@@ -24,7 +24,7 @@ function ParcelLine({ parcel, timeZone }: { parcel: ParcelView; timeZone: string
       </p>
       <p className="text-ink-soft" data-testid={`tracking-status-${parcel.direction}`}>
         {TRACKING_LABELS[parcel.trackingStatus]}
-        {latest ? ` · ${latest.location} · ${formatDateTime(latest.occurredAt, timeZone)}` : ''}
+        {latest ? ` · ${[latest.location, formatDateTime(latest.occurredAt, timeZone)].filter(Boolean).join(' · ')}` : ''}
       </p>
       {parcel.events.length > 1 ? (
         <details className="mt-1 text-xs text-ink-muted">
@@ -32,7 +32,7 @@ function ParcelLine({ parcel, timeZone }: { parcel: ParcelView; timeZone: string
           <ol className="mt-1 space-y-0.5">
             {parcel.events.map((e) => (
               <li key={e.id}>
-                {formatDateTime(e.occurredAt, timeZone)} · {e.description} · {e.location}
+                {[formatDateTime(e.occurredAt, timeZone), e.description, e.location].filter(Boolean).join(' · ')}
               </li>
             ))}
           </ol>

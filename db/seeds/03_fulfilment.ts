@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import { insertApprovedClaim, type ApprovedClaimSpec } from './approved-claims';
+import { openDemoEvidence } from './demo-evidence';
+import { repairRuns } from './demo-load-test-files';
 
 // The warehouses' opening stock and a few approved claims waiting to ship, so the Shipping & cores
 // screens have work on them. Invented figures; idempotent on part (stock) and part serial (claims).
@@ -28,42 +30,46 @@ const OPENING_STOCK: Record<string, Record<string, { onHand: number; restockInDa
 
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000);
 
-const DEMO_CLAIMS: ApprovedClaimSpec[] = [
+// `beforeFraction`: how the failed part's before run compares with a good one (the description's figures);
+// `noLoadTest`: a swollen pack is never charged or discharged again, so its claim rests on photos.
+type DemoApproved = ApprovedClaimSpec & { beforeFraction?: number; noLoadTest?: boolean };
+
+const DEMO_CLAIMS: DemoApproved[] = [
   {
     brand: 'torvane', dealer: 'kettenblatt', filedBy: 'lena.hartmann@kettenblatt.test', approvedBy: 'priya.nair@torvane.test',
-    frameSerial: 'KT25-004522', failedPart: 'TV-BP625', partSerial: 'BP625-2505-08102', customerName: 'Jana Roth',
+    frameSerial: 'KT25-005016', failedPart: 'TV-BP625', partSerial: 'BP625-2506-08417', customerName: 'Jana Roth',
     symptom: 'Range down to a third of what it was', description: 'Capacity discharge at 0.5 C delivered 10.1 Ah of 17.4 Ah rated (58 %). Pack housing intact, no swelling.',
-    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR', 'LT-BA'], approvedAt: hoursAgo(20),
+    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR', 'LT-BA'], approvedAt: hoursAgo(20), beforeFraction: 0.58,
   },
   {
     brand: 'torvane', dealer: 'lanternhill', filedBy: 'sam.okafor@lanternhill.test', approvedBy: 'owen.brandt@torvane.test',
-    frameSerial: 'KU25-007740', failedPart: 'TV-DU60', partSerial: 'DU60-2507-02231', customerName: 'Dale Whitcombe',
+    frameSerial: 'KU25-008133', failedPart: 'TV-DU60', partSerial: 'DU60-2509-02690', customerName: 'Dale Whitcombe',
     symptom: 'Grinding noise and assist cuts out on hills', description: 'Dyno run: wheel power collapses above 14 mph; bearing play at the crank spindle.',
     lines: [{ part: 'TV-DU60' }], labor: ['DU-RR', 'LT-BA'], approvedAt: hoursAgo(44),
   },
   {
     brand: 'torvane', dealer: 'tidewheel', filedBy: 'theo.marsh@tidewheel.test', approvedBy: 'priya.nair@torvane.test',
-    frameSerial: 'SW25-010613', failedPart: 'TV-BP625', partSerial: 'BP625-2512-10114', customerName: 'Ruth Abernethy',
+    frameSerial: 'SW26-010702', failedPart: 'TV-BP625', partSerial: 'BP625-2601-10230', customerName: 'Ruth Abernethy',
     symptom: 'Battery housing bulged after charging', description: 'Housing swollen along the seam, warm to the touch after a charge. Pack isolated outdoors in a steel bin on sand; not charged since.',
-    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR'], approvedAt: hoursAgo(6),
+    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR'], approvedAt: hoursAgo(6), noLoadTest: true,
   },
   {
     brand: 'torvane', dealer: 'kettenblatt', filedBy: 'jonas.weber@kettenblatt.test', approvedBy: 'owen.brandt@torvane.test',
-    frameSerial: 'HC24-000311', failedPart: 'TV-DU85', partSerial: 'DU85-2410-09921', customerName: 'Familie Brandl',
+    frameSerial: 'HC24-000347', failedPart: 'TV-DU85', partSerial: 'DU85-2411-10018', customerName: 'Familie Brandl',
     symptom: 'Motor stops with error E-017 under load', description: 'Error E-017 at every start with the cargo box loaded; dyno shows torque dropping to zero after 3 s.',
     lines: [{ part: 'TV-DU85' }], labor: ['DU-RR'], approvedAt: hoursAgo(70),
   },
   {
     brand: 'wrenfield', dealer: 'lanternhill', filedBy: 'rita.vance@lanternhill.test', approvedBy: 'ines.costa@wrenfield.test',
-    frameSerial: 'WLT25M-09104', failedPart: 'WF-HM750', partSerial: 'HM750-25-1390', customerName: 'Priscilla Ngata',
+    frameSerial: 'WLT25M-09288', failedPart: 'WF-HM750', partSerial: 'HM750-25-1472', customerName: 'Priscilla Ngata',
     symptom: 'Hub motor clicks and loses power', description: 'Axle play and intermittent hall sensor fault; dyno wheel power 310 W against 550 W minimum.',
-    lines: [{ part: 'WF-HM750' }], labor: ['HM-WHL', 'LT-BA'], approvedAt: hoursAgo(30),
+    lines: [{ part: 'WF-HM750' }], labor: ['HM-WHL', 'LT-BA'], approvedAt: hoursAgo(30), beforeFraction: 0.4,
   },
   {
     brand: 'wrenfield', dealer: 'lanternhill', filedBy: 'sam.okafor@lanternhill.test', approvedBy: 'ines.costa@wrenfield.test',
     frameSerial: 'WQC25-22071', failedPart: 'WF-B3610', partSerial: 'B3610-25-3301', customerName: 'Mo Delacroix',
     symptom: 'Rack battery shuts off at half charge', description: 'Discharge test: voltage sags below cut-off at 4.9 Ah of 10 Ah rated; one cell group reads 0.4 V low.',
-    lines: [{ part: 'WF-B3610' }], labor: ['BAT-SW', 'LT-BA'], approvedAt: hoursAgo(10),
+    lines: [{ part: 'WF-B3610' }], labor: ['BAT-SW', 'LT-BA'], approvedAt: hoursAgo(10), beforeFraction: 0.49,
   },
 ];
 
@@ -97,11 +103,32 @@ export async function seed(knex: Knex): Promise<number> {
       }
     }
   }
-  for (const spec of DEMO_CLAIMS) {
+  const evidence = await openDemoEvidence(knex);
+  if (!evidence) {
+    console.warn('[demo] storage is not reachable; the claims waiting to ship are added on the next start');
+    return added;
+  }
+  for (const [i, spec] of DEMO_CLAIMS.entries()) {
     const brand = await knex('organisations').where({ slug: spec.brand }).first('id');
     const exists = await knex('claims').where({ brand_id: brand.id, part_serial: spec.partSerial }).first('id');
     if (exists) continue;
-    await insertApprovedClaim(knex, spec);
+    const { beforeFraction, noLoadTest, ...claimSpec } = spec;
+    await insertApprovedClaim(knex, claimSpec, async (claimId, filedAt) => {
+      const row = await knex('claims as c').join('parts as p', 'p.id', 'c.part_id').join('bike_models as m', 'm.id', 'c.model_id').join('users as u', 'u.id', 'c.created_by')
+        .where('c.id', claimId).first('c.created_by', 'u.role', 'u.units', 'p.category', 'p.rated_capacity_ah', 'p.nominal_voltage_v', 'm.tyre_size', 'm.legal_class');
+      const filer = { id: row.created_by as string, role: row.role as 'dealer' | 'dealer_admin' };
+      await evidence.photos(claimId, filer, { partNumber: spec.failedPart, partSerial: spec.partSerial }, filedAt);
+      if (noLoadTest) return;
+      const runs = repairRuns({
+        category: row.category, partNumber: spec.failedPart, tyre: row.tyre_size, legalClass: row.legal_class,
+        ratedCapacityAh: row.rated_capacity_ah === null ? null : Number(row.rated_capacity_ah), nominalVoltageV: row.nominal_voltage_v === null ? null : Number(row.nominal_voltage_v),
+        units: row.units === 'imperial' ? 'imperial' : 'metric', seed: 70 + i, after: 'meets', ...(beforeFraction ? { beforeFraction } : {}),
+      });
+      const bench = row.category === 'battery'
+        ? { batterySocStartPct: 100, ambientTempC: 20, notes: 'Charged overnight, rested 1 h before the test.' }
+        : { batterySocStartPct: 100, tyreSize: row.tyre_size, dynoId: 'Shop dyno', rollerId: 'Main roller', loadKg: 80, ambientTempC: 20 };
+      await evidence.loadTest(claimId, filer, 'before', { ...runs.before, conditions: bench }, filedAt);
+    });
     added += 1;
   }
   return added;

@@ -1,14 +1,9 @@
-import { createHash, randomUUID } from 'node:crypto';
 import { driveStep } from './drive-claim';
+import { openDemoEvidence, type DemoFile } from './demo-evidence';
+import { DEMO_CARRIER, demoTrackingNumber, insertDemoParcel } from './demo-shipments';
 import { nextBrandSequence, nextClaimSequence } from '../sequences';
-import { HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import type { Knex } from 'knex';
-import sharp from 'sharp';
 import { formatClaimNumber, formatRmaNumber } from '@/lib/credits';
-import { env } from '@/lib/env';
-import { cleanPhoto } from '@/lib/files/photos';
-import type { TestConditions } from '@/lib/loadtest';
-import { analyseUpload, legalClassId, loadTestKindFor, type LoadTestSpec } from '@/lib/loadtest-evidence';
 import { BAR_PA } from '@/lib/units';
 import { initialClaimSnapshot, type Actor } from '@/machines/claim';
 import { assisted, dischargeFile, dynoFile } from './demo-load-test-files';
@@ -19,8 +14,6 @@ import { assisted, dischargeFile, dynoFile } from './demo-load-test-files';
 // same pure code as the server; the lifecycle steps go through the claim machine (stepClaim), as
 // applyStep does. Idempotent on the part serial.
 
-type Conditions = Partial<TestConditions>;
-type DemoFile = { name: string; text: string; conditions: Conditions };
 type Spec = {
   brand: 'torvane' | 'wrenfield';
   dealer: 'kettenblatt' | 'lanternhill' | 'tidewheel';
@@ -43,10 +36,6 @@ type Spec = {
 
 const bar = (x: number) => x * BAR_PA;
 const psi = (x: number) => x * 6894.757293168;
-const conditions = (c: Conditions): TestConditions => ({
-  batterySocStartPct: null, tyreSize: null, measuredCircumferenceMm: null, tyrePressurePa: null, tyreMaxPressurePa: null, dynoId: null,
-  rollerId: null, loadKg: null, ambientTempC: null, notes: '', ...c,
-});
 
 const midDrive = (flatNm: number) => assisted({ flatNm, untilKmh: 12, slopeNmPerKmh: 1.1, fadeFrom: 23.5, cutKmh: 25 });
 
@@ -114,34 +103,12 @@ const SPECS: Spec[] = [
   },
 ];
 
-function s3(): S3Client {
-  const e = env();
-  return new S3Client({
-    endpoint: e.S3_ENDPOINT, region: e.S3_REGION, forcePathStyle: e.S3_FORCE_PATH_STYLE,
-    credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
-  });
-}
-
-async function labelPhoto(text: string, sub: string): Promise<Buffer> {
-  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="960" height="640"><rect width="960" height="640" fill="#3b3f42"/>
-    <rect x="140" y="200" width="680" height="240" rx="16" fill="#f2f0ea"/>
-    <text x="180" y="290" font-family="monospace" font-size="44" fill="#111">${text}</text>
-    <text x="180" y="360" font-family="monospace" font-size="28" fill="#444">${sub}</text></svg>`;
-  return sharp(Buffer.from(svg)).jpeg({ quality: 85 }).toBuffer();
-}
-
-const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
-
 export async function seed(knex: Knex): Promise<number> {
-  const storage = s3();
-  const bucket = env().S3_BUCKET;
-  try {
-    await storage.send(new HeadBucketCommand({ Bucket: bucket }));
-  } catch {
+  const evidence = await openDemoEvidence(knex);
+  if (!evidence) {
     console.warn('[demo] storage is not reachable; the load-test demo claims are added on the next start');
     return 0;
   }
-  const put = (key: string, body: Buffer, contentType: string) => storage.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType }));
   const orgId = async (slug: string) => (await knex('organisations').where({ slug }).first('id')).id as string;
   const person = async (email: string) => (await knex('users').where({ email }).first('id', 'role')) as Actor;
   let added = 0;
@@ -179,56 +146,10 @@ export async function seed(knex: Knex): Promise<number> {
     const claimId = claim.id as string;
     await knex('claim_events').insert({ claim_id: claimId, actor_id: filer.id, actor_role: filer.role, event: 'OPENED', from_state: null, to_state: JSON.stringify(initial.value), payload: JSON.stringify({ number }), created_at: at(0) });
 
-    const attach = async (kind: string, fileName: string, bytes: Buffer, contentType: string, hours: number, thumbnail?: Buffer) => {
-      const key = `claims/${claimId}/${randomUUID()}/${fileName}`;
-      await put(key, bytes, contentType);
-      let thumbKey: string | null = null;
-      if (thumbnail) {
-        thumbKey = `${key}.thumb.webp`;
-        await put(thumbKey, thumbnail, 'image/webp');
-      }
-      const [row] = await knex('attachments')
-        .insert({ claim_id: claimId, kind, storage_key: key, thumbnail_key: thumbKey, file_name: fileName, content_type: contentType, size_bytes: bytes.length, sha256: sha(bytes), uploaded_by: filer.id, created_at: at(hours) })
-        .returning('id');
-      return { id: row.id as string, sha256: sha(bytes) };
-    };
-    for (const [kind, text, name] of [['serial_label_photo', `SN ${s.partSerial}`, 'serial-label.jpg'], ['photo', `${s.partNumber} on the bench`, 'part-on-bench.jpg']] as const) {
-      const clean = await cleanPhoto(await labelPhoto(text, 'DEMO PHOTO'), 'image/jpeg');
-      const a = await attach(kind, name, clean.photo, 'image/jpeg', 0.2, clean.thumbnail);
-      await knex('claim_events').insert({ claim_id: claimId, actor_id: filer.id, actor_role: filer.role, event: 'EVIDENCE_ADDED', from_state: JSON.stringify(initial.value), to_state: JSON.stringify(initial.value), payload: JSON.stringify({ attachmentId: a.id, kind, fileName: name, sha256: a.sha256 }), created_at: at(0.2) });
-    }
-
-    const kind = loadTestKindFor(part.category);
-    const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
-    let spec: LoadTestSpec;
-    if (kind === 'battery') {
-      const policy = await knex('warranty_policies').where({ brand_id: brandId, category: 'battery' }).first('capacity_threshold_pct');
-      spec = { kind, ratedCapacityAh: Number(part.rated_capacity_ah), nominalVoltageV: num(part.nominal_voltage_v), thresholdPct: num(policy?.capacity_threshold_pct), partNumber: s.partNumber };
-    } else {
-      spec = { kind, minWheelPowerW: num(part.min_wheel_power_w), minWheelTorqueNm: num(part.min_wheel_torque_nm), legalClass: legalClassId(unit.legal_class), partNumber: s.partNumber };
-    }
-    const record = async (phase: 'before' | 'after', file: DemoFile, hours: number) => {
-      const bytes = Buffer.from(file.text);
-      const c = conditions(file.conditions);
-      const result = analyseUpload(bytes, { kind, spec, conditions: c });
-      if (result.status !== 'ok') throw new Error(`demo load test ${file.name} did not analyse: ${JSON.stringify(result).slice(0, 300)}`);
-      const a = await attach(`load_test_${phase}`, file.name, bytes, 'text/csv', hours);
-      const runId = randomUUID();
-      await knex('load_test_runs').insert({
-        id: runId, claim_id: claimId, attachment_id: a.id, phase, kind, header_signature: result.signature, column_mapping: JSON.stringify(result.columnMapping),
-        mapping_source: 'recognised', conditions: JSON.stringify(c), summary: JSON.stringify(result.summary), warnings: JSON.stringify(result.warnings),
-        spec: JSON.stringify(spec), meets_spec: result.verdict.meets, sample_count: result.sampleCount, created_by: filer.id, created_at: at(hours), updated_at: at(hours),
-      });
-      const state = (await knex('claims').where({ id: claimId }).first('state_value')).state_value;
-      await knex('claim_events').insert({
-        claim_id: claimId, actor_id: filer.id, actor_role: filer.role, event: 'EVIDENCE_ADDED', from_state: JSON.stringify(state), to_state: JSON.stringify(state),
-        payload: JSON.stringify({ attachmentId: a.id, kind: `load_test_${phase}`, fileName: file.name, sha256: a.sha256, loadTestId: runId, meetsSpec: result.verdict.meets }), created_at: at(hours),
-      });
-      return { runId, meets: result.verdict.meets };
-    };
-    await record('before', s.before, 0.4);
-
     const dealer: Actor = { id: filer.id, role: filer.role };
+    await evidence.photos(claimId, dealer, { partNumber: s.partNumber, partSerial: s.partSerial }, at(0.2));
+    await evidence.loadTest(claimId, dealer, 'before', s.before, at(0.4));
+
     await driveStep(knex, claimId, { type: 'SUBMIT', actor: dealer, at: at(0.5), evidence: { photos: 2, serialLabelPhotos: 1, beforeTests: 1, proofOfPurchase: false, registered: true } }, { submitted_at: at(0.5) });
     added += 1;
     if (s.until === 'submitted') continue;
@@ -239,10 +160,11 @@ export async function seed(knex: Knex): Promise<number> {
     const rma = formatRmaNumber({ year, sequence: await nextBrandSequence(knex, brandId, 'rma', year) });
     const lines = [{ lineId: 'p1', approved: true }, ...labor.map((l) => ({ lineId: l.lineId, approved: true }))];
     await driveStep(knex, claimId, { type: 'APPROVE', actor: rep, at: at(22), extent: 'full', lines, rmaNumber: rma }, { rma_number: rma, approved_lines: knex.raw('requested_lines') });
-    await driveStep(knex, claimId, { type: 'SHIP', actor: warehouse, at: at(40), carrier: 'Demo Parcel', trackingNumber: `DP${s.partSerial.replace(/\W/g, '')}` });
+    await driveStep(knex, claimId, { type: 'SHIP', actor: warehouse, at: at(40), carrier: DEMO_CARRIER, trackingNumber: demoTrackingNumber(claimId, 'outbound'), service: 'road' });
+    await insertDemoParcel(knex, claimId, { direction: 'outbound', handedOverAt: at(40), deliveredAt: at(84), createdBy: warehouse.id });
     if (s.until === 'shipped' || !s.after) continue;
 
-    const after = await record('after', s.after, 90);
+    const after = await evidence.loadTest(claimId, dealer, 'after', s.after, at(90));
     await driveStep(knex, claimId, { type: 'MARK_FITTED', actor: dealer, at: at(90.2), afterTestId: after.runId, afterTestPasses: after.meets });
   }
   return added;

@@ -38,7 +38,12 @@ const one = async (p: Promise<Row | undefined>, what: string): Promise<Row> => {
 };
 
 /** Inserts the claim and its log; returns its id, number and RMA. */
-export async function insertApprovedClaim(knex: Knex, spec: ApprovedClaimSpec): Promise<{ id: string; number: string; rmaNumber: string | null }> {
+export async function insertApprovedClaim(
+  knex: Knex,
+  spec: ApprovedClaimSpec,
+  /** Adds the dealer's files between the opening and the submission, so the log stays in order. */
+  fileEvidence?: (claimId: string, at: string) => Promise<void>,
+): Promise<{ id: string; number: string; rmaNumber: string | null }> {
   const brand = await one(knex('organisations').where({ slug: spec.brand }).first('id', 'name'), `brand ${spec.brand}`);
   const dealer = await one(knex('organisations').where({ slug: spec.dealer }).first('id'), `dealer ${spec.dealer}`);
   const account = await one(knex('dealer_accounts').where({ dealer_id: dealer.id, brand_id: brand.id }).first('id'), 'dealer account');
@@ -101,7 +106,8 @@ export async function insertApprovedClaim(knex: Knex, spec: ApprovedClaimSpec): 
       created_at: at(30), updated_at: at(0), submitted_at: at(26),
     })
     .returning('id');
-  for (const e of log) {
+  for (const [i, e] of log.entries()) {
+    if (i === 1 && fileEvidence) await fileEvidence(row.id, at(27));
     await knex('claim_events').insert({
       claim_id: row.id, actor_id: e.actor, actor_role: e.role, event: e.event, from_state: e.from === null ? null : JSON.stringify(e.from),
       to_state: JSON.stringify(e.to), payload: JSON.stringify(e.payload), created_at: e.at,

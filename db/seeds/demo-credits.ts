@@ -20,6 +20,8 @@ export type DemoCreditClaim = {
   /** When the dealer submitted it. */
   submittedAt: string;
   afterTest: 'passed' | 'accepted_by_hand';
+  /** The rep's words when accepting a repair the after-test could not verify. */
+  acceptReason?: string;
   core: CoreEnd;
   approved?: (requested: ClaimLines) => ClaimLines;
   /** Left waiting for the accountant, or credited (and then perhaps reconciled) on these dates. */
@@ -42,12 +44,14 @@ export const demoCreditClaims: DemoCreditClaim[] = [
     symptom: 'Battery delivers 61% of rated capacity after 140 cycles', description: 'Capacity discharge at 0.5 C: 10.6 Ah of 17.4 Ah rated. Fitted a battery from shop stock the same day.',
     customer: 'Owen Fairclough', parts: [{ partNumber: 'TV-BP625', quantity: 1, fromDealerStock: true }], labor: ['BAT-RR', 'LT-BA'], freightMinor: 0,
     submittedAt: '2026-10-28T13:10:00Z', afterTest: 'accepted_by_hand', core: 'waived',
+    acceptReason: 'The tester lost its supply part-way through the after-discharge; the curve up to there matches a new pack and the pack is from sealed shop stock.',
   },
   {
     brand: 'torvane', dealer: 'lanternhill', frameSerial: 'KU25-007812', partNumber: 'TV-DPC2', partSerial: 'DPC2-2508-41170',
     symptom: 'Display freezes and shows E-017 after rain rides', description: 'Display resets when the cable is flexed; replaced display and remote.',
     customer: 'Priya Castellanos', parts: [{ partNumber: 'TV-DPC2', quantity: 1, fromDealerStock: false }], labor: ['DP-RR'], freightMinor: 1200,
-    submittedAt: '2026-10-20T17:25:00Z', afterTest: 'passed', core: 'no_fault_found',
+    submittedAt: '2026-10-20T17:25:00Z', afterTest: 'accepted_by_hand', core: 'no_fault_found',
+    acceptReason: 'A display has no wheel spec; the after-run shows steady assist up to the cut-off and no resets.',
   },
   {
     brand: 'wrenfield', dealer: 'lanternhill', frameSerial: 'WLT25M-09104', partNumber: 'WF-HM750', partSerial: 'HM750-25-1390',
@@ -67,7 +71,8 @@ export const demoCreditClaims: DemoCreditClaim[] = [
     brand: 'torvane', dealer: 'lanternhill', frameSerial: 'SW25-010455', partNumber: 'TV-CT20', partSerial: 'CT20-2504-33190',
     symptom: 'Motor stutters at start, controller hot to the touch', description: 'Controller MOSFET stage failing; fitted a controller from shop stock.',
     customer: 'Devon Alvarez', parts: [{ partNumber: 'TV-CT20', quantity: 1, fromDealerStock: true }], labor: ['CT-RR', 'LT-BA'], freightMinor: 0,
-    submittedAt: '2026-07-14T18:00:00Z', afterTest: 'passed', core: 'fault_confirmed',
+    submittedAt: '2026-07-14T18:00:00Z', afterTest: 'accepted_by_hand', core: 'fault_confirmed',
+    acceptReason: 'A controller has no wheel spec of its own; the after-run shows smooth torque from standstill and no stutter.',
     credit: { issuedAt: '2026-08-12T15:00:00Z', reconciledAt: '2026-09-04T16:00:00Z', statement: { source: 'Lanternhill Cycles — statement', file: 'lanternhill-aug-2026.csv', lineDate: '2026-08-31' } },
   },
   {
@@ -79,9 +84,10 @@ export const demoCreditClaims: DemoCreditClaim[] = [
   },
   {
     brand: 'torvane', dealer: 'kettenblatt', frameSerial: 'KT25-004187', partNumber: 'TV-DPC2', partSerial: 'DPC2-2502-33310',
-    symptom: 'Display backlight flickers and buttons stick', description: 'Remote buttons stick in the cold; fitted a display from shop stock. Load test not needed for a display.',
+    symptom: 'Display backlight flickers and buttons stick', description: 'Remote buttons stick in the cold; fitted a display from shop stock and checked assist on the dyno.',
     customer: 'Mara Kessler', parts: [{ partNumber: 'TV-DPC2', quantity: 1, fromDealerStock: true }], labor: ['DP-RR', 'LT-BA'], freightMinor: 0,
-    submittedAt: '2026-09-21T09:00:00Z', afterTest: 'passed', core: 'fault_confirmed', approved: refuseLabor('LT-BA'),
+    submittedAt: '2026-09-21T09:00:00Z', afterTest: 'accepted_by_hand', core: 'fault_confirmed', approved: refuseLabor('LT-BA'),
+    acceptReason: 'Display swap: the after-run shows normal assist; no load test labor for a display.',
     credit: { issuedAt: '2026-10-16T11:00:00Z' },
   },
   {

@@ -77,3 +77,53 @@ export function dischargeFile(p: { cells: number; capacityAh: number; lowA: numb
   }
   return lines.join('\n') + '\n';
 }
+
+const LEGAL_CUT_KMH: Record<string, number> = { eu_pedelec: 25, us_class1: 32, us_class2: 32, us_class3: 45 };
+
+export type RepairRunsInput = {
+  category: string;
+  partNumber: string;
+  /** ISO 5775 size of the bike's tyre, e.g. `50-622`, and its legal class from the catalog. */
+  tyre: string;
+  legalClass: string | null;
+  ratedCapacityAh: number | null;
+  nominalVoltageV: number | null;
+  units: 'metric' | 'imperial';
+  seed: number;
+  /** How the after-test turns out: meets the spec, or a run the rep has to judge by hand. */
+  after: 'meets' | 'cut_short';
+  /** The failed part's share of a good one's capacity or torque in the before run (default 0.6 and 0.45). */
+  beforeFraction?: number;
+};
+
+/**
+ * A before run that shows the fault and an after run on the same bench and tyre, for a demo
+ * claim that went all the way to its credit. Drive parts and anything else on the dyno; a
+ * battery by capacity discharge. A cut-short battery after-test lost the tester's supply part-way.
+ */
+export function repairRuns(p: RepairRunsInput): { before: { name: string; text: string }; after: { name: string; text: string } } {
+  const slug = p.partNumber.toLowerCase();
+  if (p.category === 'battery') {
+    const rated = p.ratedCapacityAh ?? 10;
+    const cells = Math.round((p.nominalVoltageV ?? 36) / 3.6);
+    const run = (capacityAh: number, seed: number, comment: string) => dischargeFile({ cells, capacityAh, lowA: 2, testA: 7, ohms: 0.16, stepS: 10, seed, comment });
+    const before = run(rated * (p.beforeFraction ?? 0.6), p.seed, `Tester 1, ${cells}S pack, 2 A for 3 min then 7 A to cut-off`);
+    let after = run(rated * 0.99, p.seed + 1, `Tester 1, ${cells}S pack, new pack, 2 A for 3 min then 7 A to cut-off`);
+    if (p.after === 'cut_short') {
+      const lines = after.trimEnd().split('\n');
+      after = lines.slice(0, Math.round(lines.length * 0.6)).join('\n') + '\n';
+    }
+    return { before: { name: `${slug}-discharge-before.csv`, text: before }, after: { name: `${slug}-discharge-after.csv`, text: after } };
+  }
+  const [width, bsd] = p.tyre.split('-').map(Number) as [number, number];
+  const cut = LEGAL_CUT_KMH[p.legalClass ?? ''] ?? 25;
+  const healthy = p.category === 'drive_unit' && p.partNumber.includes('HM')
+    ? assisted({ flatNm: 44, untilKmh: 18, slopeNmPerKmh: 0.6, fadeFrom: cut - 1.5, cutKmh: cut - 0.3 })
+    : assisted({ flatNm: 34, untilKmh: 12, slopeNmPerKmh: 0.9, fadeFrom: cut - 1.5, cutKmh: cut - 0.3 });
+  const weak = (kmh: number) => (p.beforeFraction ?? 0.45) * healthy(kmh);
+  const profile = { topKmh: cut + 2, rampS: 20, rateHz: 20, tyre: { widthMm: width, bsdMm: bsd }, units: p.units };
+  return {
+    before: { name: `${slug}-dyno-before.csv`, text: dynoFile({ ...profile, torqueAt: weak, seed: p.seed, comment: `Shop dyno, tyre ${p.tyre}` }) },
+    after: { name: `${slug}-dyno-after.csv`, text: dynoFile({ ...profile, torqueAt: healthy, seed: p.seed + 1, comment: `Shop dyno, tyre ${p.tyre}, after the repair` }) },
+  };
+}

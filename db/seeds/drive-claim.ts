@@ -8,6 +8,7 @@ import { draftHash } from '@/lib/credits/draft-hash';
 import { creditInputFromClaim, type ClaimLines } from '@/lib/credits/from-claim';
 import { memoLineRow } from '@/lib/db/memo-rows';
 import { toDecimalString } from '@/lib/money';
+import { DEMO_CARRIER, demoTrackingNumber, insertDemoParcel } from './demo-shipments';
 import { initialClaimSnapshot, stepClaim, type Actor, type ClaimContext, type ClaimEvent, type StoredClaim } from '@/machines/claim';
 
 // Drives a claim through its lifecycle with the pure machine, writing state and event rows as
@@ -110,6 +111,16 @@ export type Path = {
   core: CoreEnd;
   /** Stop early, e.g. with the replacement still to ship. */
   stopAfter?: 'approved' | 'fitted';
+  /** Why the rep accepted the repair by hand, when the after-test could not verify it. */
+  acceptReason?: string;
+  /**
+   * The stored files the after-test and waiver steps name. Without them (tests that only need the
+   * money end) the steps carry made-up ids, which nothing on those tests' screens reads.
+   */
+  evidence?: {
+    afterTest(at: string): Promise<{ runId: string; meets: boolean }>;
+    disposalProof(at: string): Promise<string>;
+  };
 };
 
 const later = (iso: string, days: number, hours = 0) => new Date(Date.parse(iso) + days * 86_400_000 + hours * 3_600_000).toISOString();
@@ -145,23 +156,29 @@ export async function driveToCreditPending(knex: Knex, claimId: string, p: Path)
     rma_number: rmaNumber, approved_lines: JSON.stringify(approved),
   });
   if (p.stopAfter === 'approved') return { rmaNumber, at: t };
-  await driveStep(knex, claimId, { type: 'SHIP', actor: wh, at: next(1), carrier: 'Demo Parcel', trackingNumber: `DP${Date.parse(t).toString(36).toUpperCase()}` });
-  const passes = p.afterTest === 'passed';
-  await driveStep(knex, claimId, { type: 'MARK_FITTED', actor: dealer, at: next(3), afterTestId: `after-${claimId.slice(0, 8)}`, afterTestPasses: passes });
+  await driveStep(knex, claimId, { type: 'SHIP', actor: wh, at: next(1), carrier: DEMO_CARRIER, trackingNumber: demoTrackingNumber(claimId, 'outbound'), service: 'road' });
+  await insertDemoParcel(knex, claimId, { direction: 'outbound', handedOverAt: t, deliveredAt: later(t, 2), createdBy: p.warehouse });
+  const fittedAt = next(3);
+  const run = p.evidence ? await p.evidence.afterTest(later(fittedAt, 0, -1)) : { runId: `after-${claimId.slice(0, 8)}`, meets: p.afterTest === 'passed' };
+  if (run.meets !== (p.afterTest === 'passed')) throw new Error(`claim ${claimId}: the after-test ${run.meets ? 'meets' : 'misses'} the spec, but the path says ${p.afterTest}`);
+  await driveStep(knex, claimId, { type: 'MARK_FITTED', actor: dealer, at: fittedAt, afterTestId: run.runId, afterTestPasses: run.meets });
   if (p.afterTest === 'accepted_by_hand') {
     await driveStep(knex, claimId, {
       type: 'ACCEPT_BY_HAND', actor: rep, at: next(1),
-      reason: 'Roller slipped on the after-run; the rider confirms full assist on a road test.',
+      reason: p.acceptReason ?? 'Roller slipped on the after-run; the rider confirms full assist on a road test.',
     });
   }
   if (p.stopAfter === 'fitted') return { rmaNumber, at: t };
   if (p.core === 'waived') {
-    await driveStep(knex, claimId, { type: 'WAIVE_CORE', actor: rep, at: next(1), reason: 'local_recycling', proofAttachmentId: `recycling-note-${claimId.slice(0, 8)}` });
+    const waivedAt = next(1);
+    const proof = p.evidence ? await p.evidence.disposalProof(later(waivedAt, 0, -2)) : `recycling-note-${claimId.slice(0, 8)}`;
+    await driveStep(knex, claimId, { type: 'WAIVE_CORE', actor: rep, at: waivedAt, reason: 'local_recycling', proofAttachmentId: proof });
   } else if (p.core === 'written_off') {
     await driveStep(knex, claimId, { type: 'REMIND_CORE', actor: system, at: next(10) });
     await driveStep(knex, claimId, { type: 'WRITE_OFF_CORE', actor: system, at: next(6) });
   } else {
-    await driveStep(knex, claimId, { type: 'CORE_SHIPPED', actor: dealer, at: next(1), carrier: 'Demo Parcel', trackingNumber: `DPC${Date.parse(t).toString(36).toUpperCase()}` });
+    await driveStep(knex, claimId, { type: 'CORE_SHIPPED', actor: dealer, at: next(1), carrier: DEMO_CARRIER, trackingNumber: demoTrackingNumber(claimId, 'return'), onReturnLabel: false });
+    await insertDemoParcel(knex, claimId, { direction: 'return', handedOverAt: t, deliveredAt: later(t, 2), createdBy: p.dealer });
     await driveStep(knex, claimId, { type: 'CORE_RECEIVED', actor: wh, at: next(3), condition: 'sound' });
     const notes: Record<string, string | undefined> = {
       fault_confirmed: undefined,
@@ -218,7 +235,7 @@ export async function issueCreditDirect(knex: Knex, claimId: string, accountantI
       brand_id: c.brand_id, dealer_id: c.dealer_id, dealer_account_id: c.dealer_account_id, claim_id: c.id, number, kind: 'claim',
       dealer_account_number: c.account_number, claim_number: c.number, rma_number: c.rma_number, currency: c.currency,
       total_minor: draft.totalMinor, issued_on: issuedOn, issued_at: at, issued_by: accountantId,
-      idempotency_key: `issue:${c.id}:${hash}`, draft_hash: hash,
+      idempotency_key: `issue:${c.id}:0:${hash}`, draft_hash: hash,
     })
     .returning('id');
   await knex('credit_memo_lines').insert(draft.lines.map((l) => memoLineRow(memo.id, l)));

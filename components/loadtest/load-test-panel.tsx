@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import type { ClaimRecord } from '@/lib/db/claims';
 import type { AppUser } from '@/lib/db/users';
 import { formatDateTime } from '@/lib/format/dates';
+import { signedPct } from '@/lib/format/percent';
 import { chartAxes, RUN_DOWN_DECELERATION_MS2 } from '@/lib/loadtest-evidence';
 import { loadTestView, type LoadTestView, type RunView } from '@/lib/services/load-test-view';
 import { formatLength, formatSpeed, type UnitSystem } from '@/lib/units';
@@ -94,8 +95,8 @@ export async function LoadTestPanel({ user, claim, allowed }: { user: AppUser; c
                       <td className="figure py-1">
                         {b.from}–{b.to} {b.unit === 'kmh' ? 'km/h' : 'mph'}
                       </td>
-                      <td className="figure py-1 text-right">{b.power?.deltaPct === null || !b.power ? '—' : `${b.power.deltaPct > 0 ? '+' : ''}${b.power.deltaPct.toFixed(1)} %`}</td>
-                      <td className="figure py-1 text-right">{b.torque?.deltaPct === null || !b.torque ? '—' : `${b.torque.deltaPct > 0 ? '+' : ''}${b.torque.deltaPct.toFixed(1)} %`}</td>
+                      <td className="figure py-1 text-right">{signedPct(b.power?.deltaPct ?? null)}</td>
+                      <td className="figure py-1 text-right">{signedPct(b.torque?.deltaPct ?? null)}</td>
                     </tr>
                   ))}
                 </tbody>

@@ -3,8 +3,9 @@ import { Badge } from '@/components/ui/badge';
 import { MOTOR_POWER_THRESHOLD_W, POWER_BAND_FRACTION, type BatteryAnalysis, type ConditionsComparison, type DynoAnalysis, type TestConditions } from '@/lib/loadtest';
 import type { RunVerdict } from '@/lib/loadtest-evidence';
 import { formatLength, formatMass, formatPower, formatPressure, formatSpeed, formatTemperature, formatTorque, type UnitSystem } from '@/lib/units';
+import { signedPct } from '@/lib/format/percent';
 
-const pct = (x: number | null) => (x === null ? '—' : `${x > 0 ? '+' : ''}${x.toFixed(1)} %`);
+const pct = signedPct;
 
 export function VerdictBadge({ verdict }: { verdict: RunVerdict }) {
   if (verdict.kind === 'no-spec') return <Badge tone="neutral">No spec to check against</Badge>;

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { insertApprovedClaim, type ApprovedClaimSpec } from './approved-claims';
 import { openDemoEvidence } from './demo-evidence';
-import { repairRuns } from './demo-load-test-files';
+import type { Actor } from '@/machines/claim';
 
 // The warehouses' opening stock and a few approved claims waiting to ship, so the Shipping & cores
 // screens have work on them. Invented figures; idempotent on part (stock) and part serial (claims).
@@ -114,20 +114,11 @@ export async function seed(knex: Knex): Promise<number> {
     if (exists) continue;
     const { beforeFraction, noLoadTest, ...claimSpec } = spec;
     await insertApprovedClaim(knex, claimSpec, async (claimId, filedAt) => {
-      const row = await knex('claims as c').join('parts as p', 'p.id', 'c.part_id').join('bike_models as m', 'm.id', 'c.model_id').join('users as u', 'u.id', 'c.created_by')
-        .where('c.id', claimId).first('c.created_by', 'u.role', 'u.units', 'p.category', 'p.rated_capacity_ah', 'p.nominal_voltage_v', 'm.tyre_size', 'm.legal_class');
-      const filer = { id: row.created_by as string, role: row.role as 'dealer' | 'dealer_admin' };
+      const filer = (await knex('users').whereRaw('lower(email) = lower(?)', [spec.filedBy]).first('id', 'role')) as Actor;
       await evidence.photos(claimId, filer, { partNumber: spec.failedPart, partSerial: spec.partSerial }, filedAt);
       if (noLoadTest) return;
-      const runs = repairRuns({
-        category: row.category, partNumber: spec.failedPart, tyre: row.tyre_size, legalClass: row.legal_class,
-        ratedCapacityAh: row.rated_capacity_ah === null ? null : Number(row.rated_capacity_ah), nominalVoltageV: row.nominal_voltage_v === null ? null : Number(row.nominal_voltage_v),
-        units: row.units === 'imperial' ? 'imperial' : 'metric', seed: 70 + i, after: 'meets', ...(beforeFraction ? { beforeFraction } : {}),
-      });
-      const bench = row.category === 'battery'
-        ? { batterySocStartPct: 100, ambientTempC: 20, notes: 'Charged overnight, rested 1 h before the test.' }
-        : { batterySocStartPct: 100, tyreSize: row.tyre_size, dynoId: 'Shop dyno', rollerId: 'Main roller', loadKg: 80, ambientTempC: 20 };
-      await evidence.loadTest(claimId, filer, 'before', { ...runs.before, conditions: bench }, filedAt);
+      const runs = await evidence.repairFiles(claimId, { seed: 70 + i, after: 'meets', ...(beforeFraction ? { beforeFraction } : {}) });
+      await evidence.loadTest(claimId, filer, 'before', runs.before, filedAt);
     });
     added += 1;
   }

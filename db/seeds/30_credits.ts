@@ -1,7 +1,6 @@
 import type { Knex } from 'knex';
 import { demoCreditClaims, demoLiabilityEntries } from './demo-credits';
 import { openDemoEvidence } from './demo-evidence';
-import { repairRuns } from './demo-load-test-files';
 import { driveToCreditPending, insertDraftClaim, issueCreditDirect, reconcileDirect } from './drive-claim';
 
 /**
@@ -37,26 +36,16 @@ export async function seed(knex: Knex): Promise<number> {
       openedAt: new Date(Date.parse(c.submittedAt) - 2 * 3_600_000).toISOString(),
     });
     const filer = { id: dealer, role: 'dealer' as const };
-    const bike = await knex('claims as c').join('parts as p', 'p.id', 'c.part_id').join('bike_models as m', 'm.id', 'c.model_id').join('users as u', 'u.id', 'c.created_by')
-      .where('c.id', claim.id).first('p.category', 'p.rated_capacity_ah', 'p.nominal_voltage_v', 'm.tyre_size', 'm.legal_class', 'u.units');
-    const runs = repairRuns({
-      category: bike.category, partNumber: c.partNumber, tyre: bike.tyre_size, legalClass: bike.legal_class,
-      ratedCapacityAh: bike.rated_capacity_ah === null ? null : Number(bike.rated_capacity_ah), nominalVoltageV: bike.nominal_voltage_v === null ? null : Number(bike.nominal_voltage_v),
-      units: bike.units === 'imperial' ? 'imperial' : 'metric', seed: added + 40,
-      after: c.afterTest === 'accepted_by_hand' && bike.category === 'battery' ? 'cut_short' : 'meets',
-    });
-    const bench = bike.category === 'battery'
-      ? { batterySocStartPct: 100, ambientTempC: 20, notes: 'Charged overnight, rested 1 h before the test.' }
-      : { batterySocStartPct: 100, tyreSize: bike.tyre_size, dynoId: 'Shop dyno', rollerId: 'Main roller', loadKg: 80, ambientTempC: 20 };
+    const runs = await evidence.repairFiles(claim.id, { seed: added + 40, after: c.afterTest === 'accepted_by_hand' ? 'cut_short' : 'meets' });
     const beforeAt = new Date(Date.parse(c.submittedAt) - 3_600_000).toISOString();
     await evidence.photos(claim.id, filer, { partNumber: c.partNumber, partSerial: c.partSerial }, beforeAt);
-    await evidence.loadTest(claim.id, filer, 'before', { ...runs.before, conditions: bench }, beforeAt);
+    await evidence.loadTest(claim.id, filer, 'before', runs.before, beforeAt);
     await driveToCreditPending(knex, claim.id, {
       dealer, rep: await person(brandId, 'brand_rep'), warehouse: await person(brandId, 'warehouse'),
       submittedAt: c.submittedAt, afterTest: c.afterTest, core: c.core, ...(c.approved ? { approved: c.approved } : {}),
       ...(c.acceptReason ? { acceptReason: c.acceptReason } : {}),
       evidence: {
-        afterTest: (at) => evidence.loadTest(claim.id, filer, 'after', { ...runs.after, conditions: bench }, at),
+        afterTest: (at) => evidence.loadTest(claim.id, filer, 'after', runs.after, at),
         disposalProof: (at) => evidence.photo(claim.id, filer, 'core_disposal_proof', 'recycling-receipt.jpg', `Recycling receipt ${c.partSerial}`, at),
       },
     });

@@ -7,6 +7,7 @@ import { cleanPhoto } from '@/lib/files/photos';
 import type { TestConditions } from '@/lib/loadtest';
 import { analyseUpload, legalClassId, loadTestKindFor, type LoadTestSpec } from '@/lib/loadtest-evidence';
 import type { Actor } from '@/machines/claim';
+import { repairRuns, type RepairRunsInput } from './demo-load-test-files';
 
 // Evidence on a demo claim, stored and recorded as a dealer's upload would be: the file in the
 // bucket under a sealed key, the attachment row with its SHA-256, an EVIDENCE_ADDED entry on the
@@ -26,6 +27,8 @@ export type DemoEvidence = {
   /** Any other photo (e.g. a disposal receipt); returns the attachment id. */
   photo(claimId: string, by: Actor, kind: string, fileName: string, caption: string, at: string): Promise<string>;
   loadTest(claimId: string, by: Actor, phase: 'before' | 'after', file: DemoFile, at: string): Promise<{ runId: string; meets: boolean }>;
+  /** A before and an after run for the claim's part, bike and filer's units, on one bench under the same conditions. */
+  repairFiles(claimId: string, o: Pick<RepairRunsInput, 'seed' | 'after' | 'beforeFraction'>): Promise<{ before: DemoFile; after: DemoFile }>;
 };
 
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
@@ -99,8 +102,23 @@ export async function openDemoEvidence(knex: Knex): Promise<DemoEvidence | null>
     return { kind, spec: { kind, minWheelPowerW: num(c.min_wheel_power_w), minWheelTorqueNm: num(c.min_wheel_torque_nm), legalClass: c.legal_class ? legalClassId(c.legal_class) : null, partNumber: c.part_number } };
   };
 
+  const repairFiles: DemoEvidence['repairFiles'] = async (claimId, o) => {
+    const row = await knex('claims as c').join('parts as p', 'p.id', 'c.part_id').join('bike_models as m', 'm.id', 'c.model_id').join('users as u', 'u.id', 'c.created_by')
+      .where('c.id', claimId).first('p.part_number', 'p.category', 'p.rated_capacity_ah', 'p.nominal_voltage_v', 'm.tyre_size', 'm.legal_class', 'u.units');
+    const runs = repairRuns({
+      ...o, category: row.category, partNumber: row.part_number, tyre: row.tyre_size, legalClass: row.legal_class,
+      ratedCapacityAh: row.rated_capacity_ah === null ? null : Number(row.rated_capacity_ah), nominalVoltageV: row.nominal_voltage_v === null ? null : Number(row.nominal_voltage_v),
+      units: row.units === 'imperial' ? 'imperial' : 'metric',
+    });
+    const bench: Conditions = row.category === 'battery'
+      ? { batterySocStartPct: 100, ambientTempC: 20, notes: 'Charged overnight, rested 1 h before the test.' }
+      : { batterySocStartPct: 100, tyreSize: row.tyre_size, dynoId: 'Shop dyno', rollerId: 'Main roller', loadKg: 80, ambientTempC: 20 };
+    return { before: { ...runs.before, conditions: bench }, after: { ...runs.after, conditions: bench } };
+  };
+
   return {
     photo,
+    repairFiles,
     async photos(claimId, by, label, at) {
       await photo(claimId, by, 'serial_label_photo', 'serial-label.jpg', `SN ${label.partSerial}`, at);
       await photo(claimId, by, 'photo', 'part-on-bench.jpg', `${label.partNumber} on the bench`, at);

@@ -99,7 +99,8 @@ export type RepairRunsInput = {
 /**
  * A before run that shows the fault and an after run on the same bench and tyre, for a demo
  * claim that went all the way to its credit. Drive parts and anything else on the dyno; a
- * battery by capacity discharge. A cut-short battery after-test lost the tester's supply part-way.
+ * battery by capacity discharge. A cut-short after-test stopped part-way (the tester lost its supply,
+ * the roller slipped), so it cannot verify the repair by itself.
  */
 export function repairRuns(p: RepairRunsInput): { before: { name: string; text: string }; after: { name: string; text: string } } {
   const slug = p.partNumber.toLowerCase();
@@ -108,12 +109,8 @@ export function repairRuns(p: RepairRunsInput): { before: { name: string; text: 
     const cells = Math.round((p.nominalVoltageV ?? 36) / 3.6);
     const run = (capacityAh: number, seed: number, comment: string) => dischargeFile({ cells, capacityAh, lowA: 2, testA: 7, ohms: 0.16, stepS: 10, seed, comment });
     const before = run(rated * (p.beforeFraction ?? 0.6), p.seed, `Tester 1, ${cells}S pack, 2 A for 3 min then 7 A to cut-off`);
-    let after = run(rated * 0.99, p.seed + 1, `Tester 1, ${cells}S pack, new pack, 2 A for 3 min then 7 A to cut-off`);
-    if (p.after === 'cut_short') {
-      const lines = after.trimEnd().split('\n');
-      after = lines.slice(0, Math.round(lines.length * 0.6)).join('\n') + '\n';
-    }
-    return { before: { name: `${slug}-discharge-before.csv`, text: before }, after: { name: `${slug}-discharge-after.csv`, text: after } };
+    const after = run(rated * 0.99, p.seed + 1, `Tester 1, ${cells}S pack, new pack, 2 A for 3 min then 7 A to cut-off`);
+    return { before: { name: `${slug}-discharge-before.csv`, text: before }, after: { name: `${slug}-discharge-after.csv`, text: cutShort(after, p.after) } };
   }
   const [width, bsd] = p.tyre.split('-').map(Number) as [number, number];
   const cut = LEGAL_CUT_KMH[p.legalClass ?? ''] ?? 25;
@@ -124,6 +121,12 @@ export function repairRuns(p: RepairRunsInput): { before: { name: string; text: 
   const profile = { topKmh: cut + 2, rampS: 20, rateHz: 20, tyre: { widthMm: width, bsdMm: bsd }, units: p.units };
   return {
     before: { name: `${slug}-dyno-before.csv`, text: dynoFile({ ...profile, torqueAt: weak, seed: p.seed, comment: `Shop dyno, tyre ${p.tyre}` }) },
-    after: { name: `${slug}-dyno-after.csv`, text: dynoFile({ ...profile, torqueAt: healthy, seed: p.seed + 1, comment: `Shop dyno, tyre ${p.tyre}, after the repair` }) },
+    after: { name: `${slug}-dyno-after.csv`, text: cutShort(dynoFile({ ...profile, torqueAt: healthy, seed: p.seed + 1, comment: `Shop dyno, tyre ${p.tyre}, after the repair` }), p.after) },
   };
+}
+
+function cutShort(text: string, after: RepairRunsInput['after']): string {
+  if (after !== 'cut_short') return text;
+  const lines = text.trimEnd().split('\n');
+  return lines.slice(0, Math.round(lines.length * 0.6)).join('\n') + '\n';
 }

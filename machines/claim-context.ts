@@ -39,6 +39,8 @@ export interface AfterTestRecord {
 }
 
 export interface ReplacementRecord {
+  /** Every approved part came from the dealer's own shelf: the brand ships nothing (absent on older claims: false). */
+  fromShopStock?: boolean;
   carrier: string | null;
   trackingNumber: string | null;
   shippedAt: string | null;

@@ -70,6 +70,8 @@ export interface ApproveEvent extends StepBase {
   coreReturnLabelRef?: string;
   /** The core is a lithium battery that ships as dangerous goods (decided by the transport rules). */
   coreDangerousGoods?: boolean;
+  /** No approved part is to be shipped: the dealer fitted every one from its own stock. */
+  nothingToShip?: boolean;
 }
 export interface DenyEvent extends StepBase {
   type: 'DENY';
@@ -215,6 +217,7 @@ const payloadSchemas = {
       rmaNumber: text('The RMA number'),
       coreReturnLabelRef: optionalText('The core return label'),
       coreDangerousGoods: flag('"coreDangerousGoods"').optional(),
+      nothingToShip: flag('"nothingToShip"').optional(),
     })
     .superRefine((e, ctx) => {
       const seen = new Set<string>();

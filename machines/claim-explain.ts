@@ -108,7 +108,11 @@ function stateRefusal(d: ClaimStateDescription, type: ClaimEventType): string {
           ? 'The replacement is already verified; no new after-test is needed.'
           : 'The replacement is already verified.';
       }
-      if (type === 'SHIP') return 'The replacement has already shipped.';
+      if (type === 'SHIP') {
+        return r === 'from_shop_stock'
+          ? 'There is nothing to ship: the dealer fitted every approved part from its own stock.'
+          : 'The replacement has already shipped.';
+      }
       if (type === 'MARK_FITTED') {
         return r === 'to_ship'
           ? 'The replacement has not shipped yet.'

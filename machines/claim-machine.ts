@@ -117,6 +117,7 @@ export const claimMachine = setup({
               ...(l.note === undefined ? {} : { note: l.note }),
             })),
             rmaNumber: event.rmaNumber,
+            replacement: { ...context.replacement, fromShopStock: event.nothingToShip === true },
             core: {
               ...context.core,
               labelRef: event.coreReturnLabelRef ?? null,
@@ -182,6 +183,8 @@ export const claimMachine = setup({
           initial: 'to_ship',
           states: {
             to_ship: {
+              // Nothing for the warehouse to send: the replacement is already on the dealer's bench.
+              always: { guard: ({ context }) => context.replacement.fromShopStock === true, target: 'from_shop_stock' },
               on: {
                 SHIP: {
                   guard: 'permitted',
@@ -200,6 +203,14 @@ export const claimMachine = setup({
               },
             },
             shipped: {
+              on: {
+                MARK_FITTED: [
+                  { guard: and(['permitted', 'afterTestPasses']), target: 'verified', actions: ['recordFitting', 'recordAfterTest'] },
+                  { guard: 'permitted', target: 'fitted', actions: ['recordFitting', 'recordAfterTest'] },
+                ],
+              },
+            },
+            from_shop_stock: {
               on: {
                 MARK_FITTED: [
                   { guard: and(['permitted', 'afterTestPasses']), target: 'verified', actions: ['recordFitting', 'recordAfterTest'] },

@@ -22,7 +22,7 @@ export const STAGES = [
 ] as const;
 export type Stage = (typeof STAGES)[number];
 
-export const REPLACEMENT_STATES = ['to_ship', 'shipped', 'fitted', 'verified'] as const;
+export const REPLACEMENT_STATES = ['to_ship', 'from_shop_stock', 'shipped', 'fitted', 'verified'] as const;
 export type ReplacementState = (typeof REPLACEMENT_STATES)[number];
 
 export const CORE_STATES = ['requested', 'in_transit', 'received', 'inspected', 'waived', 'written_off'] as const;
@@ -49,6 +49,7 @@ export const STAGE_LABELS: Record<Stage, string> = {
 
 export const REPLACEMENT_LABELS: Record<ReplacementState, string> = {
   to_ship: 'to ship',
+  from_shop_stock: 'fitted from shop stock',
   shipped: 'shipped',
   fitted: 'fitted, after-test not passed',
   verified: 'verified',

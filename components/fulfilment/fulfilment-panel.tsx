@@ -99,6 +99,11 @@ export async function FulfilmentPanel({ claim, user, attachments }: { claim: Cla
               Fit the replacement, then upload the load test after the repair. The after-test shows the fix restored performance and releases the labor credit.
             </Notice>
           ) : null}
+          {isDealer && view.replacementStep === 'from_shop_stock' ? (
+            <Notice tone="info" title="Nothing ships: prove the repair">
+              You fitted the approved parts from your own stock. Upload the load test after the repair below; it shows the fix restored performance and releases the labor credit.
+            </Notice>
+          ) : null}
           {view.dealerStockLines.length ? (
             <p className="text-xs text-ink-muted">
               From your own stock (credited, not shipped): {view.dealerStockLines.map((l) => `${l.quantity} × ${l.partNumber}`).join(', ')}

@@ -82,7 +82,7 @@ export async function insertApprovedClaim(
     { type: 'SUBMIT', actor: dealerActor, at: at(26), evidence: { photos: 3, serialLabelPhotos: 1, beforeTests: 1, proofOfPurchase: !unit, registered: !!unit } },
     { type: 'TAKE', actor: repActor, at: at(4) },
     {
-      type: 'APPROVE', actor: repActor, at: at(0), extent: 'full', rmaNumber: rmaNumber ?? '',
+      type: 'APPROVE', actor: repActor, at: at(0), extent: 'full', rmaNumber: rmaNumber ?? '', nothingToShip: parts.every((p) => p.fromDealerStock),
       lines: [...parts.map((p) => ({ lineId: p.lineId, approved: true })), ...labor.map((l) => ({ lineId: l.lineId, approved: true }))],
     },
   ];

@@ -126,7 +126,8 @@ export type Path = {
 const later = (iso: string, days: number, hours = 0) => new Date(Date.parse(iso) + days * 86_400_000 + hours * 3_600_000).toISOString();
 
 /**
- * Submit → take → approve (RMA number, approved lines) → ship → fitted with the after-test →
+ * Submit → take → approve (RMA number, approved lines) → ship (unless every part came from the
+ * dealer's stock) → fitted with the after-test →
  * the core's end (inspected, waived or written off) → credit pending.
  */
 export async function driveToCreditPending(knex: Knex, claimId: string, p: Path): Promise<{ rmaNumber: string; at: string }> {
@@ -152,12 +153,15 @@ export async function driveToCreditPending(knex: Knex, claimId: string, p: Path)
     ...requested.labor.map((l) => ({ lineId: l.lineId, approved: approved.labor.some((a) => a.lineId === l.lineId && a.hours !== '0') })),
   ];
   const extent = lines.every((l) => l.approved) ? 'full' : 'partial';
-  await driveStep(knex, claimId, { type: 'APPROVE', actor: rep, at: next(1), extent, lines, rmaNumber }, {
+  const nothingToShip = !approved.parts.some((l) => l.quantity > 0 && !l.fromDealerStock);
+  await driveStep(knex, claimId, { type: 'APPROVE', actor: rep, at: next(1), extent, lines, rmaNumber, nothingToShip }, {
     rma_number: rmaNumber, approved_lines: JSON.stringify(approved),
   });
   if (p.stopAfter === 'approved') return { rmaNumber, at: t };
-  await driveStep(knex, claimId, { type: 'SHIP', actor: wh, at: next(1), carrier: DEMO_CARRIER, trackingNumber: demoTrackingNumber(claimId, 'outbound'), service: 'road' });
-  await insertDemoParcel(knex, claimId, { direction: 'outbound', handedOverAt: t, deliveredAt: later(t, 2), createdBy: p.warehouse });
+  if (!nothingToShip) {
+    await driveStep(knex, claimId, { type: 'SHIP', actor: wh, at: next(1), carrier: DEMO_CARRIER, trackingNumber: demoTrackingNumber(claimId, 'outbound'), service: 'road' });
+    await insertDemoParcel(knex, claimId, { direction: 'outbound', handedOverAt: t, deliveredAt: later(t, 2), createdBy: p.warehouse });
+  }
   const fittedAt = next(3);
   const run = p.evidence ? await p.evidence.afterTest(later(fittedAt, 0, -1)) : { runId: `after-${claimId.slice(0, 8)}`, meets: p.afterTest === 'passed' };
   if (run.meets !== (p.afterTest === 'passed')) throw new Error(`claim ${claimId}: the after-test ${run.meets ? 'meets' : 'misses'} the spec, but the path says ${p.afterTest}`);

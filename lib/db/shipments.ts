@@ -164,14 +164,20 @@ export async function shipmentEvents(shipmentIds: string[]): Promise<ShipmentEve
   return rows.map((r) => ({ ...r, id: Number(r.id) }));
 }
 
-/** Claims whose replacement was delivered and whose core is still expected: the clock job's list. */
-export async function coresAwaitingReturn(limit = 500): Promise<{ claimId: string; shipmentId: string; deliveredAt: Date; coreDueOn: string | null }[]> {
-  return db()('shipments as s')
+/**
+ * Claims whose core is still expected, with the moment its return clock started: the replacement's
+ * delivery, or the approval when the dealer fitted its own stock and nothing shipped. The clock job's list.
+ */
+export async function coresAwaitingReturn(limit = 500): Promise<{ claimId: string; shipmentId: string | null; deliveredAt: Date; coreDueOn: string | null }[]> {
+  const delivered = db()('shipments as s')
     .join('claims as c', 'c.id', 's.claim_id')
     .select('c.id as claimId', 's.id as shipmentId', 's.delivered_at as deliveredAt', 's.core_due_on as coreDueOn')
     .where({ 's.direction': 'outbound', 'c.stage': 'approved', 'c.core_step': 'requested' })
     .whereNull('s.voided_at')
-    .whereNotNull('s.delivered_at')
-    .orderBy('s.delivered_at')
-    .limit(limit);
+    .whereNotNull('s.delivered_at');
+  const fromShopStock = db()('claims as c')
+    .select('c.id as claimId', db().raw('NULL::uuid as "shipmentId"'), db().raw(`(c.context #>> '{decision,at}')::timestamptz as "deliveredAt"`), db().raw('NULL::date as "coreDueOn"'))
+    .where({ 'c.stage': 'approved', 'c.core_step': 'requested' })
+    .whereRaw(`c.context #>> '{replacement,fromShopStock}' = 'true'`);
+  return db().select('*').from(delivered.unionAll(fromShopStock, true).as('cores')).orderBy('deliveredAt').limit(limit);
 }

@@ -32,6 +32,15 @@ function mark(steps: Omit<TrackStep, 'state'>[], currentIndex: number): TrackSte
  * delivered → fitted → verified. The carrier's own word (in transit, delivered) comes from tracking.
  */
 export function replacementTrack(step: ReplacementState, ctx: ClaimContext, parcel: ParcelSummary | null, backordered: string | null): TrackStep[] {
+  if (ctx.replacement.fromShopStock) {
+    // Nothing travels: the dealer fitted its own part, and proves the repair with the after-test.
+    const own: Omit<TrackStep, 'state'>[] = [
+      { key: 'from_shop_stock', label: 'Fitted from the shop’s own stock: nothing to ship', at: ctx.decision?.at ?? null, detail: null },
+      { key: 'fitted', label: 'After-test uploaded', at: ctx.replacement.fittedAt, detail: null },
+      { key: 'verified', label: 'Verified by the after-test', at: ctx.afterTest.settledAt, detail: ctx.afterTest.outcome === 'accepted_by_hand' ? 'Accepted by the rep by hand' : null },
+    ];
+    return mark(own, step === 'from_shop_stock' ? 1 : step === 'fitted' ? 2 : 3);
+  }
   const word = parcel ? dealerTrackingWord(parcel.trackingStatus) : null;
   const via = parcel ? `${carrierName(parcel.carrier)} ${parcel.trackingNumber}` : ctx.replacement.carrier ? `${carrierName(ctx.replacement.carrier)} ${ctx.replacement.trackingNumber ?? ''}`.trim() : null;
   const steps: Omit<TrackStep, 'state'>[] = [

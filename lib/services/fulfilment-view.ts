@@ -87,13 +87,15 @@ export async function loadFulfilmentView(claim: ClaimRecord): Promise<Fulfilment
   const coreIsBattery = part?.category === 'battery';
 
   let clock: ClockResult | null = null;
-  if (outbound?.deliveredAt && coreStep === 'requested') {
+  // The return clock starts when the replacement arrives; with nothing shipped, when the claim was approved.
+  const clockStart = outbound?.deliveredAt ?? (ctx.replacement.fromShopStock ? ctx.decision?.at : null);
+  if (clockStart && coreStep === 'requested') {
     const [org, holidays, policy] = await Promise.all([
       organisationAddress(claim.brandId),
       brandHolidays(claim.brandId),
       claim.partCategory ? findPolicy(claim.brandId, claim.partCategory as PartCategory) : Promise.resolve(null),
     ]);
-    const deliveredAt = new Date(outbound.deliveredAt).toISOString();
+    const deliveredAt = new Date(clockStart).toISOString();
     const now = new Date(Math.max(Date.now(), Date.parse(deliveredAt))).toISOString();
     clock = coreClock({
       deliveredAt, now, timeZone: org?.timeZone ?? 'UTC', calendar: { holidays },

@@ -79,7 +79,7 @@ export async function loadTestView(user: AppUser, claim: ClaimRecord, allowed: r
   const freshForm = (): ConditionsForm => ({ ...EMPTY_CONDITIONS_FORM, tyreSize: kind === 'dyno' ? (claim.tyreSize ?? '') : '' });
   // The after-test is run like the before-test: its form starts from the before-test's conditions.
   const afterForm = (): ConditionsForm => (before ? { ...conditionsToForm(before.conditions, units), notes: '' } : freshForm());
-  const afterOpen = claim.stage === 'approved' && (claim.replacementStep === 'shipped' || claim.replacementStep === 'fitted');
+  const afterOpen = claim.stage === 'approved' && (claim.replacementStep === 'shipped' || claim.replacementStep === 'from_shop_stock' || claim.replacementStep === 'fitted');
   const upload = {
     before: isDealer && canAttach('load_test_before', 'dealer', claim.stage) ? { conditions: freshForm() } : null,
     after: isDealer && afterOpen ? { conditions: afterForm() } : null,

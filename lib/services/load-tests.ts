@@ -76,7 +76,7 @@ function refusal(message: string, issues: readonly LoadtestIssue[], warnings: re
 /** Why a load test of this phase cannot be added to the claim now; null when it can. */
 function phaseProblem(claim: ClaimRecord, phase: LoadTestPhase): string | null {
   if (phase === 'before') return null;
-  if (claim.stage !== 'approved') return 'An after-test is added once the claim is approved and the replacement has shipped.';
+  if (claim.stage !== 'approved') return 'An after-test is added once the claim is approved and the replacement is on the bike.';
   switch (claim.replacementStep) {
     case 'to_ship':
       return 'The replacement has not shipped yet; run the after-test once it is fitted.';

@@ -103,7 +103,8 @@ export async function approveClaim(user: AppUser, claimId: string, input: Approv
       const year = new Date(ctx.at).getUTCFullYear();
       // Inside the step's transaction: a refused approval gives its number back.
       const rmaNumber = formatRmaNumber({ year, sequence: await nextBrandSequence(trx, claim.brandId, 'rma', year) });
-      return { extent: built.extent, lines: built.lines, rmaNumber, ...(input.message ? { message: input.message } : {}) };
+      const nothingToShip = !built.approved.parts.some((p) => p.quantity > 0 && !p.fromDealerStock);
+      return { extent: built.extent, lines: built.lines, rmaNumber, nothingToShip, ...(input.message ? { message: input.message } : {}) };
     },
     columns: (_ctx, next) => ({
       rma_number: next.context.rmaNumber,
@@ -119,7 +120,9 @@ export async function approveClaim(user: AppUser, claimId: string, input: Approv
         body: [
           partial ? `Changed from your request: ${changes.join('; ')}.` : 'Approved as requested.',
           input.message ? `“${input.message}”` : '',
-          `The replacement ships under RMA ${next.context.rmaNumber}; keep the failed part for its return.`,
+          next.context.replacement.fromShopStock
+            ? `Nothing ships: you fitted the approved parts from your own stock. Upload the after-test on the claim to release the labor credit, and keep the failed part for its return under RMA ${next.context.rmaNumber}.`
+            : `The replacement ships under RMA ${next.context.rmaNumber}; keep the failed part for its return.`,
         ].filter(Boolean).join(' '),
       });
     },

@@ -99,7 +99,7 @@ export async function runCoreClock(now: Date = new Date()): Promise<{ checked: n
     if (new Date(row.deliveredAt).getTime() > now.getTime()) continue;
     const { timeZone, calendar } = await brandCalendar(claim.brandId);
     const clock = coreClock({ deliveredAt: new Date(row.deliveredAt).toISOString(), now: now.toISOString(), timeZone, calendar, policy: await corePolicyFor(claim.brandId, claim.partCategory) });
-    if (row.coreDueOn !== clock.dueDate) await db().transaction((trx) => setCoreDueOn(trx, row.shipmentId, clock.dueDate));
+    if (row.shipmentId && row.coreDueOn !== clock.dueDate) await db().transaction((trx) => setCoreDueOn(trx, row.shipmentId!, clock.dueDate));
     const action = coreClockAction(clock, claim.context.core, timeZone);
     try {
       if (action === 'remind') {

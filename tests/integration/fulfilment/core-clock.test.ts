@@ -86,4 +86,18 @@ describe('the core-return clock (business days from delivery; Torvane controller
     const to = (await db()('outbox').where({ claim_id: claim.id }).where('subject', 'like', '%written off%')).map((m) => m.to_email);
     expect(to).toEqual(expect.arrayContaining(['lena.hartmann@kettenblatt.test', 'hana.sato@torvane.test', 'felix.moreau@torvane.test']));
   });
+
+  it('with nothing shipped (the shop fitted its own part), the clock runs from the approval', async () => {
+    const h = await holidays();
+    const today = localDate(new Date().toISOString(), TZ);
+    // Approved 17 business days ago, at noon in Amsterdam: due 2 business days ago, still in grace.
+    const approvedOn = addBusinessDays(today, -17, { holidays: h });
+    const claim = await approvedClaim({ failedPart: 'TV-CT20', lines: [{ part: 'TV-CT20', fromDealerStock: true }], approvedAt: new Date(`${approvedOn}T11:00:00Z`) });
+    const row = await db()('claims').where({ id: claim.id }).first('replacement_step');
+    expect(row.replacement_step).toBe('from_shop_stock');
+    await runCoreClock();
+    const c = await core(claim.id);
+    expect(c.core_step).toBe('requested');
+    expect(c.context.core.remindersSent).toBe(1);
+  });
 });

@@ -47,7 +47,7 @@ export type FiledClaim = { id: string; number: string; brandId: string };
  * A Torvane drive-unit claim from Kettenblatt, submitted: two DU85 units requested (so a rep can
  * approve one), the remove-and-refit and load-test operations, and 18.50 freight.
  */
-export async function submittedClaim(opts: { dealer?: string; frameSerial?: string; submit?: boolean } = {}): Promise<FiledClaim> {
+export async function submittedClaim(opts: { dealer?: string; frameSerial?: string; submit?: boolean; fromDealerStock?: boolean } = {}): Promise<FiledClaim> {
   const dealerEmail = opts.dealer ?? DEALER;
   const uid = await actAs(dealerEmail);
   const user = (await findActiveUser(uid!))!;
@@ -57,7 +57,7 @@ export async function submittedClaim(opts: { dealer?: string; frameSerial?: stri
     brandId, frameSerial: opts.frameSerial ?? 'KT25-004187', partId: du85, partSerial: 'DU85-2503-11872', failureDate: '2026-11-20',
     symptom: 'Assist cuts out under load', errorCodes: 'E-042', description: 'Dyno shows power collapse above 15 km/h.',
     customerName: 'Test Rider', customerEmail: '', customerPhone: '',
-    parts: [{ partId: du85, quantity: 2, fromDealerStock: false }],
+    parts: [{ partId: du85, quantity: 2, fromDealerStock: opts.fromDealerStock ?? false }],
     labor: [{ operationId: await laborId(brandId, 'DU-RR') }, { operationId: await laborId(brandId, 'LT-BA') }],
     freight: '18.50',
   } as never);

@@ -184,6 +184,6 @@ export function snapshotOf(stored: StoredClaim) {
 }
 
 export const approvedValue = (
-  replacement: 'to_ship' | 'shipped' | 'fitted' | 'verified',
+  replacement: 'to_ship' | 'from_shop_stock' | 'shipped' | 'fitted' | 'verified',
   core: 'requested' | 'in_transit' | 'received' | 'inspected' | 'waived' | 'written_off',
 ): ClaimStateValue => ({ approved: { replacement, core } });

@@ -56,7 +56,7 @@ export default async function WarehouseClaimPage({ params }: { params: Promise<{
             {dealer ? ` · ${dealer.line}, ${dealer.postcode} ${dealer.city}, ${dealer.country}` : ''}
           </p>
         </div>
-        {claim.rmaNumber ? (
+        {claim.rmaNumber && !claim.context.replacement.fromShopStock ? (
           <a href={`/api/claims/${claim.id}/packing-slip`} target="_blank" rel="noreferrer" className="inline-flex min-h-10 items-center rounded-md border border-paper-line bg-paper-raised px-4 py-2 text-sm font-bold hover:bg-paper-sunk" data-testid="packing-slip-link">
             {view?.outbound ? 'Packing slip (PDF)' : 'Pick list (PDF)'}
           </a>
@@ -79,6 +79,11 @@ export default async function WarehouseClaimPage({ params }: { params: Promise<{
                   offers={options(view.outboundOffers)}
                 />
               </section>
+            ) : null}
+            {view.replacementStep === 'from_shop_stock' ? (
+              <Notice tone="info" title="Nothing to ship">
+                {claim.dealerName} fitted every approved part from its own stock; only the core comes back.
+              </Notice>
             ) : null}
 
             {view.coreStep === 'requested' ? (

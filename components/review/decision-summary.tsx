@@ -50,7 +50,11 @@ export function DecisionSummary({ view, audience, timeZone = 'UTC' }: { view: Cl
         <LineComparisonTable lines={lines} currency={claim.currency} />
       </div>
       {audience === 'dealer' ? (
-        <p className="mt-3 text-sm text-ink-soft">The replacement ships under this RMA number. Keep the failed part: it goes back to the brand as the core, unless the brand waives the return.</p>
+        <p className="mt-3 text-sm text-ink-soft">
+          {claim.context.replacement.fromShopStock
+            ? 'Nothing ships: you fitted the approved parts from your own stock. Keep the failed part: it goes back to the brand as the core under this RMA number, unless the brand waives the return.'
+            : 'The replacement ships under this RMA number. Keep the failed part: it goes back to the brand as the core, unless the brand waives the return.'}
+        </p>
       ) : null}
     </section>
   );

@@ -39,7 +39,7 @@ const DEMO_CLAIMS: DemoApproved[] = [
     brand: 'torvane', dealer: 'kettenblatt', filedBy: 'lena.hartmann@kettenblatt.test', approvedBy: 'priya.nair@torvane.test',
     frameSerial: 'KT25-005016', failedPart: 'TV-BP625', partSerial: 'BP625-2506-08417', customerName: 'Jana Roth',
     symptom: 'Range down to a third of what it was', description: 'Capacity discharge at 0.5 C delivered 10.1 Ah of 17.4 Ah rated (58 %). Pack housing intact, no swelling.',
-    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR', 'LT-BA'], approvedAt: hoursAgo(20), beforeFraction: 0.58,
+    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR', 'LT-BA'], approvedAt: hoursAgo(20), beforeFraction: 0.58, batteryCycles: 210,
   },
   {
     brand: 'torvane', dealer: 'lanternhill', filedBy: 'sam.okafor@lanternhill.test', approvedBy: 'owen.brandt@torvane.test',
@@ -51,7 +51,7 @@ const DEMO_CLAIMS: DemoApproved[] = [
     brand: 'torvane', dealer: 'tidewheel', filedBy: 'theo.marsh@tidewheel.test', approvedBy: 'priya.nair@torvane.test',
     frameSerial: 'SW26-010702', failedPart: 'TV-BP625', partSerial: 'BP625-2601-10230', customerName: 'Ruth Abernethy',
     symptom: 'Battery housing bulged after charging', description: 'Housing swollen along the seam, warm to the touch after a charge. Pack isolated outdoors in a steel bin on sand; not charged since.',
-    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR'], approvedAt: hoursAgo(6), noLoadTest: true,
+    lines: [{ part: 'TV-BP625' }], labor: ['BAT-RR'], approvedAt: hoursAgo(6), noLoadTest: true, batteryCycles: 95,
   },
   {
     brand: 'torvane', dealer: 'kettenblatt', filedBy: 'jonas.weber@kettenblatt.test', approvedBy: 'owen.brandt@torvane.test',
@@ -69,7 +69,7 @@ const DEMO_CLAIMS: DemoApproved[] = [
     brand: 'wrenfield', dealer: 'lanternhill', filedBy: 'sam.okafor@lanternhill.test', approvedBy: 'ines.costa@wrenfield.test',
     frameSerial: 'WQC25-22071', failedPart: 'WF-B3610', partSerial: 'B3610-25-3301', customerName: 'Mo Delacroix',
     symptom: 'Rack battery shuts off at half charge', description: 'Discharge test: voltage sags below cut-off at 4.9 Ah of 10 Ah rated; one cell group reads 0.4 V low.',
-    lines: [{ part: 'WF-B3610' }], labor: ['BAT-SW', 'LT-BA'], approvedAt: hoursAgo(10), beforeFraction: 0.49,
+    lines: [{ part: 'WF-B3610' }], labor: ['BAT-SW', 'LT-BA'], approvedAt: hoursAgo(10), beforeFraction: 0.49, batteryCycles: 160,
   },
 ];
 

@@ -32,6 +32,7 @@ export async function seed(knex: Knex): Promise<number> {
     const claim = await insertDraftClaim(knex, {
       dealerId, brandId, frameSerial: c.frameSerial, partNumber: c.partNumber, partSerial: c.partSerial,
       failureDate: c.submittedAt.slice(0, 10), symptom: c.symptom, description: c.description, customerName: c.customer,
+      ...(c.batteryCycles === undefined ? {} : { batteryCycles: c.batteryCycles }),
       parts: c.parts, labor: c.labor, freightMinor: c.freightMinor, openedBy: dealer,
       openedAt: new Date(Date.parse(c.submittedAt) - 2 * 3_600_000).toISOString(),
     });

@@ -19,6 +19,8 @@ export type ApprovedClaimSpec = {
   symptom: string;
   description: string;
   customerName?: string;
+  /** Charge cycles read from a battery's management system. */
+  batteryCycles?: number;
   /** Replacement parts, by part number. */
   lines: { part: string; quantity?: number; fromDealerStock?: boolean }[];
   labor?: string[];
@@ -100,7 +102,7 @@ export async function insertApprovedClaim(
       number, dealer_id: dealer.id, brand_id: brand.id, dealer_account_id: account.id, model_id: unit?.model_id ?? null,
       registered_unit_id: unit?.id ?? null, frame_serial: spec.frameSerial, part_id: failed.id, part_category: failed.category,
       part_serial: spec.partSerial, sale_date: unit?.retail_sale_date ?? null, failure_date: spec.failureDate ?? at(72).slice(0, 10),
-      symptom: spec.symptom, description: spec.description, customer_name: spec.customerName ?? '',
+      symptom: spec.symptom, description: spec.description, customer_name: spec.customerName ?? '', battery_cycles: spec.batteryCycles ?? null,
       requested_lines: JSON.stringify(lines), approved_lines: upTo === 'approved' ? JSON.stringify(lines) : null, state_value: JSON.stringify(stored.value),
       context: JSON.stringify(stored.context), version: steps.length, rma_number: rmaNumber, created_by: filer.id,
       created_at: at(30), updated_at: at(0), submitted_at: at(26),

@@ -130,7 +130,7 @@ export const demoUnits: Record<string, DemoUnit[]> = {
     { frameSerial: 'WLT25M-09104', model: 'LRK-TR', sold: '2025-07-19', dealer: 'lanternhill', components: { drive_unit: 'HM750-25-1390', battery: 'B4814-25-8014', frame: 'WLT25M-09104' } },
     { frameSerial: 'WLT25M-09288', model: 'LRK-TR', sold: '2025-08-30', dealer: 'lanternhill', components: { drive_unit: 'HM750-25-1472', battery: 'B4814-25-8233', frame: 'WLT25M-09288' } },
     { frameSerial: 'WQC25-22071', model: 'QRY-CT', sold: '2025-10-04', dealer: 'lanternhill', components: { drive_unit: 'HM500-25-4410', battery: 'B3610-25-3301', display: 'LCD3-25-6120' } },
-    { frameSerial: 'WLM24-03318', model: 'LMD-TO', sold: '2024-05-11', dealer: 'tidewheel', components: { drive_unit: 'HM750-24-0712', battery: 'B4814-24-2291' } },
+    { frameSerial: 'WLM24-03318', model: 'LMD-TO', sold: '2025-01-11', dealer: 'tidewheel', components: { drive_unit: 'HM750-24-0712', battery: 'B4814-24-2291' } },
     { frameSerial: 'WLM25-04102', model: 'LMD-TO', sold: '2025-12-13', dealer: 'tidewheel', components: { drive_unit: 'HM750-25-2215', battery: 'B4814-25-9177', extender: 'RX26-25-0412' } },
     { frameSerial: 'WQE25-11504', model: 'QRY-EU', sold: '2025-09-27', dealer: 'kettenblatt', components: { drive_unit: 'HM500-25-4822', battery: 'B3610-25-3590' } },
   ],

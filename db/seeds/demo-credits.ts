@@ -14,6 +14,7 @@ export type DemoCreditClaim = {
   symptom: string;
   description: string;
   customer: string;
+  batteryCycles?: number;
   parts: { partNumber: string; quantity: number; fromDealerStock: boolean }[];
   labor: string[];
   freightMinor: number;
@@ -42,7 +43,7 @@ export const demoCreditClaims: DemoCreditClaim[] = [
   {
     brand: 'torvane', dealer: 'tidewheel', frameSerial: 'SW25-010613', partNumber: 'TV-BP625', partSerial: 'BP625-2512-10114',
     symptom: 'Battery delivers 61% of rated capacity after 140 cycles', description: 'Capacity discharge at 0.5 C: 10.6 Ah of 17.4 Ah rated. Fitted a battery from shop stock the same day.',
-    customer: 'Owen Fairclough', parts: [{ partNumber: 'TV-BP625', quantity: 1, fromDealerStock: true }], labor: ['BAT-RR', 'LT-BA'], freightMinor: 0,
+    customer: 'Owen Fairclough', batteryCycles: 140, parts: [{ partNumber: 'TV-BP625', quantity: 1, fromDealerStock: true }], labor: ['BAT-RR', 'LT-BA'], freightMinor: 0,
     submittedAt: '2026-10-28T13:10:00Z', afterTest: 'accepted_by_hand', core: 'waived',
     acceptReason: 'The tester lost its supply part-way through the after-discharge; the curve up to there matches a new pack and the pack is from sealed shop stock.',
   },
@@ -78,7 +79,7 @@ export const demoCreditClaims: DemoCreditClaim[] = [
   {
     brand: 'torvane', dealer: 'tidewheel', frameSerial: 'KT26-000220', partNumber: 'TV-BP625', partSerial: 'BP625-2602-10650',
     symptom: 'Battery will not wake from storage mode', description: 'No output on the terminals after the BMS reset procedure.',
-    customer: 'Ellen Thibodeau', parts: [{ partNumber: 'TV-BP625', quantity: 1, fromDealerStock: false }], labor: ['BAT-RR'], freightMinor: 0,
+    customer: 'Ellen Thibodeau', batteryCycles: 35, parts: [{ partNumber: 'TV-BP625', quantity: 1, fromDealerStock: false }], labor: ['BAT-RR'], freightMinor: 0,
     submittedAt: '2026-08-10T12:00:00Z', afterTest: 'passed', core: 'written_off',
     credit: { issuedAt: '2026-09-22T08:00:00Z' },
   },

@@ -110,7 +110,7 @@ export function repairRuns(p: RepairRunsInput): { before: { name: string; text: 
     const run = (capacityAh: number, seed: number, comment: string) => dischargeFile({ cells, capacityAh, lowA: 2, testA: 7, ohms: 0.16, stepS: 10, seed, comment });
     const before = run(rated * (p.beforeFraction ?? 0.6), p.seed, `Tester 1, ${cells}S pack, 2 A for 3 min then 7 A to cut-off`);
     const after = run(rated * 0.99, p.seed + 1, `Tester 1, ${cells}S pack, new pack, 2 A for 3 min then 7 A to cut-off`);
-    return { before: { name: `${slug}-discharge-before.csv`, text: before }, after: { name: `${slug}-discharge-after.csv`, text: cutShort(after, p.after) } };
+    return { before: { name: `${slug}-discharge-before.csv`, text: before }, after: { name: `${slug}-discharge-after.csv`, text: cutShort(after, p.after, 0.66) } };
   }
   const [width, bsd] = p.tyre.split('-').map(Number) as [number, number];
   const cut = LEGAL_CUT_KMH[p.legalClass ?? ''] ?? 25;
@@ -125,8 +125,9 @@ export function repairRuns(p: RepairRunsInput): { before: { name: string; text: 
   };
 }
 
-function cutShort(text: string, after: RepairRunsInput['after']): string {
+/** The first `share` of the file's lines, when the run was cut short. */
+function cutShort(text: string, after: RepairRunsInput['after'], share = 0.6): string {
   if (after !== 'cut_short') return text;
   const lines = text.trimEnd().split('\n');
-  return lines.slice(0, Math.round(lines.length * 0.6)).join('\n') + '\n';
+  return lines.slice(0, Math.round(lines.length * share)).join('\n') + '\n';
 }

@@ -26,6 +26,8 @@ export type NewClaim = {
   symptom: string;
   description: string;
   customerName: string;
+  /** Charge cycles read from a battery's management system. */
+  batteryCycles?: number;
   /** Part numbers with quantities; labor operation codes; freight in minor units. */
   parts: { partNumber: string; quantity: number; fromDealerStock: boolean }[];
   labor: string[];
@@ -61,7 +63,7 @@ export async function insertDraftClaim(knex: Knex, c: NewClaim): Promise<{ id: s
       number, dealer_id: c.dealerId, brand_id: c.brandId, dealer_account_id: account.id, model_id: unit?.model_id ?? null,
       registered_unit_id: unit?.id ?? null, frame_serial: c.frameSerial, part_id: part.id, part_category: part.category,
       part_serial: c.partSerial, sale_date: unit?.retail_sale_date ?? null, failure_date: c.failureDate, symptom: c.symptom,
-      description: c.description, customer_name: c.customerName,
+      description: c.description, customer_name: c.customerName, battery_cycles: c.batteryCycles ?? null,
       requested_lines: JSON.stringify({ parts, labor, freightMinor: c.freightMinor }),
       state_value: JSON.stringify(initial.value), context: JSON.stringify(initial.context), created_by: c.openedBy,
       created_at: c.openedAt, updated_at: c.openedAt,

@@ -212,6 +212,18 @@ export async function liveMatchOfMemo(memoId: string, q: Knex = db()): Promise<M
   return ((await matchBase(q).where('x.memo_id', memoId).whereIn('x.status', ['proposed', 'confirmed']).first()) as MatchRecord | undefined) ?? null;
 }
 
+/** A reversed memo is owed to nobody: its open proposals are rejected, each with the reason in the log. */
+export async function rejectProposalsOfMemo(trx: Knex, m: { brandId: string; memoId: string; by: string; note: string }): Promise<number> {
+  const rows = await trx('reconciliation_matches')
+    .where({ memo_id: m.memoId, status: 'proposed' })
+    .update({ status: 'rejected', decided_by: m.by, decided_at: trx.fn.now(), note: m.note })
+    .returning('id');
+  if (rows.length) {
+    await trx('reconciliation_events').insert(rows.map((r: { id: string }) => ({ brand_id: m.brandId, match_id: r.id, event: 'rejected', actor_id: m.by, note: m.note })));
+  }
+  return rows.length;
+}
+
 /** A proposal is decided once; false when it was decided already (the caller re-reads why). */
 export async function decideMatch(trx: Knex, m: { brandId: string; id: string; status: 'confirmed' | 'rejected'; by: string; note?: string }): Promise<boolean> {
   const n = await trx('reconciliation_matches')

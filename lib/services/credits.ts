@@ -28,6 +28,7 @@ import {
   type MemoRow,
   type StoredMemo,
 } from '@/lib/db/credit-memos';
+import { rejectProposalsOfMemo } from '@/lib/db/statements';
 import type { AppUser } from '@/lib/db/users';
 import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@/lib/errors';
 import { formatMoney, parseAmount, type CurrencyCode } from '@/lib/money';
@@ -391,6 +392,7 @@ export async function reverseMemo(user: AppUser, memoId: string, reason: string)
       const out = await writeMemo(trx, user, claim, draft, new Date().toISOString(), {
         key, hash: draftHash(draft), reversesMemoId: memo.id, reason: reason.trim(),
       });
+      await rejectProposalsOfMemo(trx, { brandId: claim.brandId, memoId: memo.id, by: user.id, note: `${memo.number} was reversed by ${out.number}` });
       await logClaimNote(trx, user, claim, 'MEMO_REVERSED', { memoId: memo.id, memo: memo.number, reversal: out.number, note: reason.trim() });
       await notifyDealer(trx, claim, memoNotice(claim, out.number, draft, 'Reversing memo'));
       return { memoId: out.id, number: out.number, replayed: false };

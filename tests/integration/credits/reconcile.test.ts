@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { POST as importRoute } from '@/app/api/accounts/statements/route';
 import { db } from '@/db/connection';
 import { localDateOfEpoch } from '@/lib/calendar/time-zone';
-import { issueCredit, loadCreditView } from '@/lib/services/credits';
+import { issueCredit, loadCreditView, reverseMemo } from '@/lib/services/credits';
 import { chooseMemoForLine, confirmMatch, importStatement, rejectMatch, StatementRejected, type ImportRequest } from '@/lib/services/reconciliation';
 import { listSources } from '@/lib/db/statements';
 import { toDecimalString } from '@/lib/money';
@@ -194,5 +194,22 @@ describe('bad statements are refused whole: row errors shown, nothing half-impor
     await expect(confirmMatch(await signedIn(PEOPLE.wrenfield.accountant), m.id)).rejects.toMatchObject({ status: 404 });
     await expect(confirmMatch(await signedIn(PEOPLE.dealers.kettenblatt.admin), m.id)).rejects.toMatchObject({ status: 403 });
     expect((await db()('reconciliation_matches').where({ id: m.id }).first()).status).toBe('proposed');
+  });
+
+  it('reversing a memo rejects its open proposals, logged with the reason; the statement line is open again', async () => {
+    const kettenblatt = await orgId('kettenblatt');
+    const { memo } = await issuedMemo();
+    const csv = `Date,Reference,Amount\n${today()},${memo.memoNumber},${toDecimalString(memo.totalMinor, 'EUR')}\n`;
+    const out = await importStatement(await accountant(), request(csv, { dealerId: kettenblatt }));
+    const proposed = await matchOfLine(out.importId, 2);
+    expect(proposed).toMatchObject({ status: 'proposed', memoId: memo.memoId });
+
+    const rev = await reverseMemo(await accountant(), memo.memoId, 'Issued to the wrong account');
+    const after = await matchOfLine(out.importId, 2);
+    expect(after).toMatchObject({ id: proposed.id, status: 'rejected' });
+    const logged = await db()('reconciliation_events').where({ match_id: proposed.id }).orderBy('id');
+    expect(logged.map((e) => e.event)).toEqual(['proposed', 'rejected']);
+    expect(logged[1].note).toBe(`${memo.memoNumber} was reversed by ${rev.number}`);
+    await expect(confirmMatch(await accountant(), proposed.id)).rejects.toMatchObject({ status: 409 });
   });
 });

@@ -23,14 +23,22 @@ export async function liabilityEntries(brandId: string, q: Knex = db()): Promise
   return rows.map((r) => ({ ...r, createdAt: new Date(r.createdAt).toISOString() }));
 }
 
+/** Records the entry once per client key: a repeated key returns the entry already made, `replayed`. */
 export async function insertLiabilityEntry(
-  e: { brandId: string; entryDate: string; kind: LiabilityEntry['kind']; amountMinor: number; currency: string; note: string; by: string },
+  e: { brandId: string; entryDate: string; kind: LiabilityEntry['kind']; amountMinor: number; currency: string; note: string; by: string; clientKey?: string },
   q: Knex = db(),
-): Promise<number> {
+): Promise<{ id: number; replayed: boolean }> {
   const [row] = await q('liability_entries')
-    .insert({ brand_id: e.brandId, entry_date: e.entryDate, kind: e.kind, amount_minor: e.amountMinor, currency: e.currency, note: e.note, entered_by: e.by })
+    .insert({
+      brand_id: e.brandId, entry_date: e.entryDate, kind: e.kind, amount_minor: e.amountMinor, currency: e.currency, note: e.note, entered_by: e.by,
+      client_key: e.clientKey ?? null,
+    })
+    .onConflict(['brand_id', 'client_key'])
+    .ignore()
     .returning('id');
-  return row.id;
+  if (row) return { id: row.id, replayed: false };
+  const existing = await q('liability_entries').where({ brand_id: e.brandId, client_key: e.clientKey ?? null }).first('id');
+  return { id: existing.id, replayed: true };
 }
 
 export type ShippedClaim = {

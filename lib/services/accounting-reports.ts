@@ -143,14 +143,17 @@ export async function rollForwardReport(user: AppUser, period: Period) {
 
 export async function addLiabilityEntry(
   user: AppUser,
-  e: { entryDate: string; kind: LiabilityEntry['kind']; amountMinor: number; note: string },
-): Promise<number> {
+  e: { entryDate: string; kind: LiabilityEntry['kind']; amountMinor: number; note: string; clientKey?: string },
+): Promise<{ id: number; replayed: boolean }> {
   requireAccountant(user);
   if (e.kind === 'accrual' && e.amountMinor < 0) {
     throw new ValidationError('An accrual is not negative.', { amount: ['Record a reduction as a change in estimate.'] });
   }
   const brand = await brandSettings(user.organisationId);
-  return insertLiabilityEntry({ brandId: user.organisationId, entryDate: e.entryDate, kind: e.kind, amountMinor: e.amountMinor, currency: brand.currency, note: e.note.trim(), by: user.id });
+  return insertLiabilityEntry({
+    brandId: user.organisationId, entryDate: e.entryDate, kind: e.kind, amountMinor: e.amountMinor, currency: brand.currency, note: e.note.trim(), by: user.id,
+    ...(e.clientKey ? { clientKey: e.clientKey } : {}),
+  });
 }
 
 export function forExport(m: StoredMemo): MemoForExport {

@@ -88,4 +88,6 @@ export const liabilityEntrySchema = z.object({
   kind: z.enum(['opening_balance', 'accrual', 'change_in_estimate'], { message: 'Choose what the entry is.' }),
   amount: z.string().trim().min(1, 'Enter the amount, like 3200.00.').max(30),
   note: z.string().trim().min(3, 'Say what the entry is for.').max(300),
+  /** Made once per entry by the form, so a double click records it once. */
+  clientKey: z.string().uuid().optional(),
 });

@@ -31,12 +31,13 @@ export const chargebackAction = validatedAction(chargebackSchema, async ({ claim
   return { ok: true, message: out.replayed ? `Chargeback memo ${out.number} was issued already.` : `Chargeback memo ${out.number} issued.` };
 });
 
-export const liabilityEntryAction = validatedAction(liabilityEntrySchema, async ({ entryDate, kind, amount, note }) => {
+export const liabilityEntryAction = validatedAction(liabilityEntrySchema, async ({ entryDate, kind, amount, note, clientKey }) => {
   const user = await requireRole('accountant');
   const { currency } = await brandSettings(user.organisationId);
   const parsed = parseAmount(amount, { currency: currency as CurrencyCode });
   if (!parsed.ok) throw new ValidationError('The amount is not an amount.', { amount: [parsed.message] });
-  await addLiabilityEntry(user, { entryDate, kind, amountMinor: parsed.value, note });
+  const out = await addLiabilityEntry(user, { entryDate, kind, amountMinor: parsed.value, note, ...(clientKey ? { clientKey } : {}) });
   revalidatePath('/accounts/reports');
-  return { ok: true, message: `Entry of ${formatMoney(parsed.value, currency as CurrencyCode, { accounting: true })} on ${entryDate} recorded.` };
+  const what = `Entry of ${formatMoney(parsed.value, currency as CurrencyCode, { accounting: true })} on ${entryDate}`;
+  return { ok: true, message: out.replayed ? `${what} was recorded already; nothing added.` : `${what} recorded.` };
 });

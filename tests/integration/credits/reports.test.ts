@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { GET as dealerExportRoute } from '@/app/api/credits/export/route';
@@ -65,6 +66,21 @@ describe('warranty liability roll-forward (ASC 460-10-50-8(c))', () => {
     const second = await rollForwardReport(await accountant(), { from: '2026-07-01', to: '2026-09-30' });
     expect(first.opening?.amountMinor).toBe(4_800_000);
     expect(second.table.beginningBalanceMinor).toBe(first.table.endingBalanceMinor);
+  });
+
+  it('an entry sent twice with its form key is recorded once', async () => {
+    const period = { from: today(), to: today() };
+    const before = (await rollForwardReport(await accountant(), period)).table;
+    const entry = { entryDate: today(), kind: 'accrual' as const, amountMinor: 77_00, note: 'double-clicked accrual', clientKey: randomUUID() };
+    const [a, b] = await Promise.all([addLiabilityEntry(await accountant(), entry), addLiabilityEntry(await accountant(), entry)]);
+    expect(a.id).toBe(b.id);
+    expect([a.replayed, b.replayed].sort()).toEqual([false, true]);
+    const after = (await rollForwardReport(await accountant(), period)).table;
+    expect(after.accrualsMinor - before.accrualsMinor).toBe(77_00);
+    // A new key is a new entry.
+    const c = await addLiabilityEntry(await accountant(), { ...entry, clientKey: randomUUID() });
+    expect(c.replayed).toBe(false);
+    expect(c.id).not.toBe(a.id);
   });
 
   it('refuses a negative accrual and a reversed period', async () => {

@@ -27,9 +27,17 @@ export async function leaseDueMail(limit: number): Promise<OutboxMail[]> {
   return rows;
 }
 
+// An invitation link sets a password: once its mail is out, the copy kept here no longer carries it.
+const INVITE_LINK = String.raw`/invite/[A-Za-z0-9_-]+`;
+const SENT_LINK = '/invite/(link sent by e-mail)';
+
 export async function markSent(ids: number[]): Promise<void> {
   if (!ids.length) return;
-  await db()('outbox').whereIn('id', ids).update({ status: 'sent', sent_at: db().fn.now(), locked_until: null, last_error: null });
+  await db()('outbox').whereIn('id', ids).update({
+    status: 'sent', sent_at: db().fn.now(), locked_until: null, last_error: null,
+    text_body: db().raw(`regexp_replace(text_body, ?, ?, 'g')`, [INVITE_LINK, SENT_LINK]),
+    html_body: db().raw(`regexp_replace(html_body, ?, ?, 'g')`, [INVITE_LINK, SENT_LINK]),
+  });
 }
 
 export async function markFailed(id: number, error: string, retryInSeconds: number): Promise<void> {

@@ -4,6 +4,7 @@ import { acceptInviteAction } from '@/app/(auth)/invite/actions';
 import { inviteAction, setDisabledAction } from '@/app/(app)/people/actions';
 import { db } from '@/db/connection';
 import { verifyCredentials } from '@/lib/auth/credentials';
+import { markSent } from '@/lib/db/outbox';
 import { lookupInvitation } from '@/lib/services/people';
 import { actAs, userId } from '../../support/acting-user';
 
@@ -32,6 +33,20 @@ const fresh = () => `new.person.${Date.now()}.${n++}@lanternhill.test`;
 
 describe('inviting people', () => {
   beforeEach(() => actAs('rita.vance@lanternhill.test'));
+
+  it('once the invitation is sent, the copy kept in the outbox no longer carries the link', async () => {
+    const email = fresh();
+    expect(await inviteAction(undefined, form({ name: 'Noor Vale', email, role: 'dealer' }))).toMatchObject({ ok: true });
+    const token = await tokenFromOutbox(email);
+    const row = await db()('outbox').where({ to_email: email }).orderBy('id', 'desc').first('id');
+    await markSent([row.id]);
+    const kept = await db()('outbox').where({ id: row.id }).first('status', 'text_body', 'html_body');
+    expect(kept.status).toBe('sent');
+    expect(`${kept.text_body} ${kept.html_body ?? ''}`).not.toContain(token);
+    expect(kept.text_body).toContain('/invite/(link sent by e-mail)');
+    // The link itself still works: only the stored copy was cleared.
+    expect(await lookupInvitation(token)).toMatchObject({ ok: true, email });
+  });
 
   it('a shop admin invites a colleague; the mail is queued with a one-time link; the new user signs in', async () => {
     const email = fresh();

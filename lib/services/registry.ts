@@ -57,11 +57,10 @@ async function check(brandId: string, file: RegistryFile, q = db()): Promise<Reg
   const parsed = parseRegistryCsv(textOf(file));
   if (!parsed.ok) refuseFile(parsed.message);
   const rows = parsed.ok ? parsed.rows : [];
-  const [models, dealers, registered] = await Promise.all([
-    modelsByCode(brandId, q),
-    dealersByAccountNumber(brandId, q),
-    registeredSerialsAmong(brandId, rows.map((r) => r.fields.frame_serial ?? ''), q),
-  ]);
+  // One after another: inside the import's transaction these share one connection.
+  const models = await modelsByCode(brandId, q);
+  const dealers = await dealersByAccountNumber(brandId, q);
+  const registered = await registeredSerialsAmong(brandId, rows.map((r) => r.fields.frame_serial ?? ''), q);
   const result = checkRegistryRows(rows, {
     modelsByCode: models, dealersByAccount: dealers, registeredSerials: registered, today: localDate(new Date().toISOString(), brand.timeZone),
   });

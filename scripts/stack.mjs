@@ -241,6 +241,8 @@ function childEnv() {
     LOCAL_DATA_DIR: dataDir,
     NEXT_DIST_DIR: testing ? '.next-test' : '.next',
     NEXT_TELEMETRY_DISABLED: '1',
+    // The installed AWS SDK supports this machine's Node 20; its notice is about releases after January 2027.
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };
   // Real services win: a variable already set is left alone.
   for (const [k, v] of Object.entries(defaults)) if (!e[k]) e[k] = v;

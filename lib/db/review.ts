@@ -104,7 +104,12 @@ export type ReviewQueueRow = {
   deniedByRepId: string | null;
   appealsUsed: number;
   updatedAt: string;
+  /** The clock's log entries, oldest first, for a claim whose review clock runs; empty otherwise. */
+  clockEvents: ClockEvent[];
 };
+
+/** Stages in which a claim's review clock runs. */
+export const CLOCK_STAGES = ['submitted', 'in_review', 'waiting_on_dealer', 'appealed'] as const;
 
 const SORT_COLUMNS: Record<ReviewQueueSort, string> = {
   deadline: 'c.review_due_on',
@@ -112,6 +117,8 @@ const SORT_COLUMNS: Record<ReviewQueueSort, string> = {
   number: 'c.number',
   updated: 'c.updated_at',
 };
+/** The same order on the selected page (its columns under their selected names). */
+const PAGE_SORT_COLUMNS: Record<ReviewQueueSort, string> = { deadline: 'reviewDueOn', age: 'submittedAt', number: 'number', updated: 'updatedAt' };
 
 /**
  * One page of the claims against the rep's brand, filtered and sorted in SQL. The open claims are
@@ -147,7 +154,7 @@ export async function listReviewQueue(
     filtered.where((w) => w.whereILike('c.number', like).orWhereILike('c.frame_serial', like).orWhereILike('c.part_serial', like));
   }
   const count = cappedCount(filtered);
-  const listed = filtered
+  const pageOf = filtered
     .clone()
     .join('organisations as d', 'd.id', 'c.dealer_id')
     .leftJoin('parts as p', 'p.id', 'c.part_id')
@@ -165,11 +172,24 @@ export async function listReviewQueue(
     .orderBy([{ column: SORT_COLUMNS[sort.by], order: sort.dir, ...(sort.by === 'deadline' ? { nulls: 'last' as const } : {}) }, { column: 'c.id', order: sort.dir }])
     .limit(page.pageSize)
     .offset((page.page - 1) * page.pageSize);
+  // The page's clock entries come with it, read only for the page's own rows (after the limit):
+  // one round trip instead of a second query per page.
+  const events = db()('claim_events as e')
+    .select(db().raw(`coalesce(json_agg(json_build_object('event', e.event, 'at', e.created_at) ORDER BY e.id), '[]')`))
+    .whereRaw('e.claim_id = pg.id')
+    .whereIn('e.event', CLOCK_EVENTS);
+  const listed = db()
+    .select('pg.*', db().raw(`CASE WHEN pg.stage IN (${CLOCK_STAGES.map(() => '?').join(', ')}) AND pg."reviewStartedAt" IS NOT NULL THEN (?) ELSE '[]' END as "clockEvents"`, [...CLOCK_STAGES, events]))
+    .from(pageOf.as('pg'))
+    .orderBy([{ column: `pg.${PAGE_SORT_COLUMNS[sort.by]}`, order: sort.dir, ...(sort.by === 'deadline' ? { nulls: 'last' as const } : {}) }, { column: 'pg.id', order: sort.dir }]);
   const [counted, rows] = await Promise.all([count, listed]);
   const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
   return {
     ...counted,
-    rows: rows.map((r) => ({ ...r, submittedAt: iso(r.submittedAt), reviewStartedAt: iso(r.reviewStartedAt), updatedAt: iso(r.updatedAt)! })),
+    rows: rows.map((r) => ({
+      ...r, submittedAt: iso(r.submittedAt), reviewStartedAt: iso(r.reviewStartedAt), updatedAt: iso(r.updatedAt)!,
+      clockEvents: (r.clockEvents as { event: ClockEvent['event']; at: string }[]).map((e) => ({ event: e.event, at: new Date(e.at).toISOString() })),
+    })),
   };
 }
 

@@ -1,13 +1,13 @@
 import 'server-only';
 import { addBusinessDays, DEFAULT_DUE_SOON_WITHIN, localDate, type ClockStatus } from '@/lib/calendar';
 import { listPolicies } from '@/lib/db/catalog';
-import { brandCalendar, clockEventsFor, listReviewQueue, otherActiveReps, type BrandCalendarRow, type ReviewQueueFilters, type ReviewQueueRow } from '@/lib/db/review';
+import { brandCalendar, CLOCK_STAGES as CLOCK_STAGE_LIST, listReviewQueue, otherActiveReps, type BrandCalendarRow, type ReviewQueueFilters, type ReviewQueueRow } from '@/lib/db/review';
 import type { AppUser } from '@/lib/db/users';
 import { ForbiddenError } from '@/lib/errors';
 import { reviewDeadline, reviewRuleText } from '@/lib/review';
 import { AGE_BUCKETS, QUEUE_VIEWS, type ReviewQueueQuery } from '@/lib/validation/review';
 
-const CLOCK_STAGES = new Set(['submitted', 'in_review', 'waiting_on_dealer', 'appealed']);
+const CLOCK_STAGES = new Set<string>(CLOCK_STAGE_LIST);
 
 /**
  * The brand's time zone, holidays and review days, kept for a minute per process: the queue is
@@ -29,7 +29,7 @@ function brandSettings(brandId: string, now: Date) {
 }
 
 export type QueueClock = { dueDate: string; businessDaysLeft: number; status: ClockStatus; isPaused: boolean; summary: string };
-export type ReviewQueueItem = ReviewQueueRow & { clock: QueueClock | null; canTake: boolean; canRelease: boolean };
+export type ReviewQueueItem = Omit<ReviewQueueRow, 'clockEvents'> & { clock: QueueClock | null; canTake: boolean; canRelease: boolean };
 export type ReviewQueuePage = { rows: ReviewQueueItem[]; total: number; totalCapped: boolean; page: number; pageSize: number; today: string; dueSoonUntil: string; rule: string };
 
 /**
@@ -57,22 +57,18 @@ export async function reviewQueue(user: AppUser, query: ReviewQueueQuery, now = 
   // Decided claims have no deadline: "by deadline" lists them latest change first.
   const sort = query.sort === 'deadline' && query.view === 'decided' ? { by: 'updated' as const, dir: 'desc' as const } : { by: query.sort, dir: query.dir };
   const { rows, total, totalCapped } = await listReviewQueue(user, filters, sort, { page: query.page, pageSize: query.pageSize });
-  const clocked = rows.filter((r) => CLOCK_STAGES.has(r.stage) && r.reviewStartedAt);
   // Only an appeal this rep denied needs to know whether another rep could take it.
   const deniedByMe = rows.some((r) => r.stage === 'appealed' && r.deniedByRepId === user.id);
-  const [events, others] = await Promise.all([
-    clockEventsFor(clocked.map((r) => r.id)),
-    deniedByMe ? otherActiveReps(brandId, user.id) : Promise.resolve([]),
-  ]);
+  const others = deniedByMe ? await otherActiveReps(brandId, user.id) : [];
   const nowIso = now.toISOString();
 
-  const items = rows.map((r): ReviewQueueItem => {
+  const items = rows.map(({ clockEvents, ...r }): ReviewQueueItem => {
     let clock: QueueClock | null = null;
     if (CLOCK_STAGES.has(r.stage) && r.reviewStartedAt) {
       const at = Date.parse(nowIso) < Date.parse(r.reviewStartedAt) ? r.reviewStartedAt : nowIso;
       const c = reviewDeadline({
         startedAt: r.reviewStartedAt, now: at, timeZone: cal.timeZone, calendar,
-        reviewDays: (r.partCategory && reviewDays.get(r.partCategory)) || null, events: events.get(r.id) ?? [],
+        reviewDays: (r.partCategory && reviewDays.get(r.partCategory)) || null, events: clockEvents,
       });
       clock = { dueDate: c.dueDate, businessDaysLeft: c.businessDaysLeft, status: c.status, isPaused: c.isPaused, summary: c.summary };
     }

@@ -298,7 +298,11 @@ function EvidenceCheck({ view, r, units, newIds }: { view: ClaimView; r: RepData
                 {part.nominalVoltageV} V × {part.ratedCapacityAh} Ah = {(part.nominalVoltageV * part.ratedCapacityAh).toFixed(0)} Wh
               </Fact>
             ) : null}
-            <p className="text-xs text-ink-muted">Compare the before-test with this spec; a run above the legal speed class under motor power is a sign of tampering to look at, not a reason on its own.</p>
+            <p className="text-xs text-ink-muted">
+              {part.category === 'battery'
+                ? 'Compare the capacity discharge with the rating and the policy’s capacity threshold.'
+                : 'Compare the before-test with this spec; a run above the legal speed class under motor power is a sign of tampering to look at, not a reason on its own.'}
+            </p>
           </>
         ) : (
           <p className="text-ink-muted">No part chosen.</p>

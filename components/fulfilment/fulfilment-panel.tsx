@@ -12,6 +12,7 @@ import { CoreShippedForm } from './core-shipped-form';
 import { DangerousGoodsPanel } from './dangerous-goods-panel';
 import { TrackSteps } from './track-steps';
 import { WaiveCoreForm } from './waive-core-form';
+import { nothingShipsText } from '@/lib/fulfilment';
 
 function ParcelLine({ parcel, timeZone }: { parcel: ParcelView; timeZone: string }) {
   const latest = parcel.events.at(-1);
@@ -101,7 +102,7 @@ export async function FulfilmentPanel({ claim, user, attachments }: { claim: Cla
           ) : null}
           {isDealer && view.replacementStep === 'from_shop_stock' ? (
             <Notice tone="info" title="Nothing ships: prove the repair">
-              You fitted the approved parts from your own stock. Upload the load test after the repair below; it shows the fix restored performance and releases the labor credit.
+              {nothingShipsText(claim.approvedLines?.parts ?? [], 'dealer')} Upload the load test after the repair below; it shows the fix restored performance and releases the labor credit.
             </Notice>
           ) : null}
           {view.dealerStockLines.length ? (

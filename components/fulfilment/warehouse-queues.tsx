@@ -17,7 +17,7 @@ type ToShip = {
 type Return = {
   id: string; number: string; rmaNumber: string | null; dealerName: string; partNumber: string | null; partName: string | null; partCategory: string | null;
   coreStep: string; labelTracking: string | null; labelCarrier: string | null; trackingStatus: string | null; batteryCondition: string | null;
-  coreDueOn: string | null; deliveredAt: string | null; receivedAt: string | null;
+  coreDueOn: string | null; deliveredAt: string | null; receivedAt: string | null; nothingShips: boolean;
 };
 
 function age(iso: string | null): string {
@@ -160,7 +160,7 @@ export function ReturnsQueue() {
           header: 'Due back',
           cell: (c) => {
             const due = c.getValue();
-            if (!due) return <span className="text-ink-muted">{c.row.original.deliveredAt ? '—' : 'after delivery'}</span>;
+            if (!due) return <span className="text-ink-muted">{c.row.original.deliveredAt || c.row.original.nothingShips ? '—' : 'after delivery'}</span>;
             const late = c.row.original.coreStep === 'requested' && due < new Date().toISOString().slice(0, 10);
             return <span className={late ? 'font-bold text-fault-700' : undefined}>{formatDay(due)}{late ? ' · overdue' : ''}</span>;
           },

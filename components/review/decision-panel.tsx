@@ -243,7 +243,7 @@ function ApprovalForm({ claimId, version, currency, requested, draft, schedule }
       <Button type="submit" disabled={pending || !preview.ok} className="w-full">
         {pending ? 'Approving…' : extent === 'partial' ? 'Approve in part' : 'Approve in full'}
       </Button>
-      <p className="text-xs text-ink-muted">Approving issues the RMA number; the warehouse ships the replacement and the core return starts.</p>
+      <p className="text-xs text-ink-muted">Approving issues the RMA number; the warehouse ships the replacement (nothing ships when every approved part is from the shop’s own stock) and the core return starts.</p>
     </form>
   );
 }

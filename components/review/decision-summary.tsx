@@ -4,6 +4,7 @@ import { formatDateTime } from '@/lib/format/dates';
 import { compareLines } from '@/lib/review';
 import type { ClaimView } from '@/lib/services/claim-view';
 import { DENIAL_REASON_LABELS } from '@/machines/claim';
+import { nothingShipsText } from '@/lib/fulfilment';
 
 /** The decision as it stands: approved (with the RMA and the lines against the request) or denied (with the reason). */
 export function DecisionSummary({ view, audience, timeZone = 'UTC' }: { view: ClaimView; audience: 'dealer' | 'brand'; timeZone?: string }) {
@@ -52,7 +53,7 @@ export function DecisionSummary({ view, audience, timeZone = 'UTC' }: { view: Cl
       {audience === 'dealer' ? (
         <p className="mt-3 text-sm text-ink-soft">
           {claim.context.replacement.fromShopStock
-            ? 'Nothing ships: you fitted the approved parts from your own stock. Keep the failed part: it goes back to the brand as the core under this RMA number, unless the brand waives the return.'
+            ? `${nothingShipsText(claim.approvedLines?.parts ?? [], 'dealer')} Keep the failed part: it goes back to the brand as the core under this RMA number, unless the brand waives the return.`
             : 'The replacement ships under this RMA number. Keep the failed part: it goes back to the brand as the core, unless the brand waives the return.'}
         </p>
       ) : null}

@@ -83,6 +83,8 @@ export type ReturnRow = {
   batteryCondition: string | null;
   coreDueOn: string | null;
   deliveredAt: string | null;
+  /** Nothing was shipped (the shop's own part, or none approved): the clock runs from the approval. */
+  nothingShips: boolean;
   receivedAt: string | null;
 };
 
@@ -106,7 +108,7 @@ export async function listReturns(user: AppUser, query: ReturnsQuery, today: str
       base.where('c.core_step', query.filter);
       break;
     case 'overdue':
-      base.where('c.core_step', 'requested').where('o.core_due_on', '<', today);
+      base.where('c.core_step', 'requested').where(db().raw('coalesce(o.core_due_on, c.core_due_on)'), '<', today);
       break;
     case 'closed':
       base.whereIn('c.core_step', ['inspected', 'waived', 'written_off']);
@@ -115,7 +117,8 @@ export async function listReturns(user: AppUser, query: ReturnsQuery, today: str
       base.whereIn('c.core_step', ['requested', 'in_transit', 'received']);
   }
   if (query.q) base.where((w) => w.whereILike('c.rma_number', like(query.q!)).orWhereILike('c.number', like(query.q!)).orWhereILike('d.name', like(query.q!)).orWhereILike('r.tracking_number', like(query.q!)));
-  const order = { due: 'o.core_due_on', rma: 'c.rma_number', dealer: 'd.name' }[query.sort];
+  // A delivered replacement's due day is on its parcel; with nothing shipped it is on the claim.
+  const order = { due: db().raw('coalesce(o.core_due_on, c.core_due_on)'), rma: 'c.rma_number', dealer: 'd.name' }[query.sort];
   const [count, rows] = await Promise.all([
     base.clone().count<{ count: string }[]>('c.id as count').first(),
     base
@@ -123,7 +126,8 @@ export async function listReturns(user: AppUser, query: ReturnsQuery, today: str
       .select(
         'c.id', 'c.number', 'c.rma_number as rmaNumber', 'd.name as dealerName', 'p.part_number as partNumber', 'p.name as partName',
         'c.part_category as partCategory', 'c.core_step as coreStep', 'r.tracking_number as labelTracking', 'r.carrier as labelCarrier',
-        'r.tracking_status as trackingStatus', 'r.battery_condition as batteryCondition', 'o.core_due_on as coreDueOn',
+        'r.tracking_status as trackingStatus', 'r.battery_condition as batteryCondition', db().raw('coalesce(o.core_due_on, c.core_due_on) as "coreDueOn"'),
+        db().raw(`coalesce((c.context #>> '{replacement,fromShopStock}')::boolean, false) as "nothingShips"`),
         'o.delivered_at as deliveredAt', db().raw(`c.context -> 'core' ->> 'receivedAt' AS "receivedAt"`),
       )
       .orderBy([{ column: order, order: query.dir, nulls: 'last' }, { column: 'c.id', order: query.dir }])

@@ -27,7 +27,7 @@ export async function liabilityEntries(brandId: string, q: Knex = db()): Promise
 export async function insertLiabilityEntry(
   e: { brandId: string; entryDate: string; kind: LiabilityEntry['kind']; amountMinor: number; currency: string; note: string; by: string; clientKey?: string },
   q: Knex = db(),
-): Promise<{ id: number; replayed: boolean }> {
+): Promise<{ id: number; replayed: boolean; stored: { entryDate: string; kind: string; amountMinor: number; note: string } }> {
   const [row] = await q('liability_entries')
     .insert({
       brand_id: e.brandId, entry_date: e.entryDate, kind: e.kind, amount_minor: e.amountMinor, currency: e.currency, note: e.note, entered_by: e.by,
@@ -36,9 +36,13 @@ export async function insertLiabilityEntry(
     .onConflict(['brand_id', 'client_key'])
     .ignore()
     .returning('id');
-  if (row) return { id: row.id, replayed: false };
-  const existing = await q('liability_entries').where({ brand_id: e.brandId, client_key: e.clientKey ?? null }).first('id');
-  return { id: existing.id, replayed: true };
+  const stored = { entryDate: e.entryDate, kind: e.kind, amountMinor: e.amountMinor, note: e.note };
+  if (row) return { id: row.id, replayed: false, stored };
+  const existing = await q('liability_entries').where({ brand_id: e.brandId, client_key: e.clientKey ?? null }).first('id', 'entry_date', 'kind', 'amount_minor', 'note');
+  return {
+    id: existing.id, replayed: true,
+    stored: { entryDate: String(existing.entry_date).slice(0, 10), kind: existing.kind, amountMinor: Number(existing.amount_minor), note: existing.note },
+  };
 }
 
 export type ShippedClaim = {

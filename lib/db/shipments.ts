@@ -154,6 +154,11 @@ export async function setCoreDueOn(trx: Knex, id: string, dueOn: string): Promis
   await trx('shipments').where({ id }).update({ core_due_on: dueOn, updated_at: trx.fn.now() });
 }
 
+/** With no replacement parcel, the due day is kept on the claim itself. */
+export async function setClaimCoreDueOn(trx: Knex, claimId: string, dueOn: string): Promise<void> {
+  await trx('claims').where({ id: claimId }).update({ core_due_on: dueOn });
+}
+
 export async function shipmentEvents(shipmentIds: string[]): Promise<ShipmentEvent[]> {
   if (!shipmentIds.length) return [];
   const rows = await db()('shipment_events')
@@ -176,7 +181,7 @@ export async function coresAwaitingReturn(limit = 500): Promise<{ claimId: strin
     .whereNull('s.voided_at')
     .whereNotNull('s.delivered_at');
   const fromShopStock = db()('claims as c')
-    .select('c.id as claimId', db().raw('NULL::uuid as "shipmentId"'), db().raw(`(c.context #>> '{decision,at}')::timestamptz as "deliveredAt"`), db().raw('NULL::date as "coreDueOn"'))
+    .select('c.id as claimId', db().raw('NULL::uuid as "shipmentId"'), db().raw(`(c.context #>> '{decision,at}')::timestamptz as "deliveredAt"`), 'c.core_due_on as coreDueOn')
     .where({ 'c.stage': 'approved', 'c.core_step': 'requested' })
     .whereRaw(`c.context #>> '{replacement,fromShopStock}' = 'true'`);
   return db().select('*').from(delivered.unionAll(fromShopStock, true).as('cores')).orderBy('deliveredAt').limit(limit);

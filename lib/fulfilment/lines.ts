@@ -56,3 +56,13 @@ export function quantitiesByPart(lines: PartLine[]): Map<string, { partNumber: s
   }
   return out;
 }
+
+/**
+ * Why nothing ships for an approved claim, in the dealer's words and the brand's: every approved
+ * part came from the shop's shelf, or no part was approved at all (labor or freight only).
+ */
+export function nothingShipsText(approvedParts: readonly Pick<PartLine, 'quantity' | 'fromDealerStock'>[], audience: 'dealer' | 'brand'): string {
+  const fromStock = approvedParts.some((p) => p.quantity > 0 && p.fromDealerStock);
+  if (audience === 'dealer') return fromStock ? 'Nothing ships: you fitted the approved parts from your own stock.' : 'Nothing ships: no replacement part was approved.';
+  return fromStock ? 'Nothing to ship: the dealer fitted every approved part from its own stock.' : 'Nothing to ship: no replacement part was approved.';
+}

@@ -31,11 +31,18 @@ function mark(steps: Omit<TrackStep, 'state'>[], currentIndex: number): TrackSte
  * The replacement's way to the dealer, as the dealer follows it: to ship → shipped → in transit →
  * delivered → fitted → verified. The carrier's own word (in transit, delivered) comes from tracking.
  */
-export function replacementTrack(step: ReplacementState, ctx: ClaimContext, parcel: ParcelSummary | null, backordered: string | null): TrackStep[] {
+export function replacementTrack(
+  step: ReplacementState,
+  ctx: ClaimContext,
+  parcel: ParcelSummary | null,
+  backordered: string | null,
+  /** With nothing to ship: whether an approved part came from the shop's own stock (else none was approved). */
+  fromShopShelf = true,
+): TrackStep[] {
   if (ctx.replacement.fromShopStock) {
     // Nothing travels: the dealer fitted its own part, and proves the repair with the after-test.
     const own: Omit<TrackStep, 'state'>[] = [
-      { key: 'from_shop_stock', label: 'Fitted from the shop’s own stock: nothing to ship', at: ctx.decision?.at ?? null, detail: null },
+      { key: 'from_shop_stock', label: fromShopShelf ? 'From the shop’s own stock: nothing ships' : 'No replacement part approved: nothing ships', at: ctx.decision?.at ?? null, detail: null },
       { key: 'fitted', label: 'After-test uploaded', at: ctx.replacement.fittedAt, detail: null },
       { key: 'verified', label: 'Verified by the after-test', at: ctx.afterTest.settledAt, detail: ctx.afterTest.outcome === 'accepted_by_hand' ? 'Accepted by the rep by hand' : null },
     ];

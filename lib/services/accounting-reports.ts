@@ -5,8 +5,8 @@ import { approvedLinesOf } from '@/lib/credits/from-claim';
 import { memosWithLines, type StoredMemo } from '@/lib/db/credit-memos';
 import { brandSettings, claimParts, insertLiabilityEntry, liabilityEntries, partCosts, shippedClaims, type LiabilityEntry } from '@/lib/db/liability';
 import type { AppUser } from '@/lib/db/users';
-import { ForbiddenError, ValidationError } from '@/lib/errors';
-import type { CurrencyCode } from '@/lib/money';
+import { ConflictError, ForbiddenError, ValidationError } from '@/lib/errors';
+import { formatMoney, type CurrencyCode } from '@/lib/money';
 import { ageOpenItems, type OpenItem } from '@/lib/reconciliation';
 import {
   exportMemosCsv,
@@ -150,10 +150,18 @@ export async function addLiabilityEntry(
     throw new ValidationError('An accrual is not negative.', { amount: ['Record a reduction as a change in estimate.'] });
   }
   const brand = await brandSettings(user.organisationId);
-  return insertLiabilityEntry({
+  const out = await insertLiabilityEntry({
     brandId: user.organisationId, entryDate: e.entryDate, kind: e.kind, amountMinor: e.amountMinor, currency: brand.currency, note: e.note.trim(), by: user.id,
     ...(e.clientKey ? { clientKey: e.clientKey } : {}),
   });
+  const s = out.stored;
+  if (out.replayed && (s.entryDate !== e.entryDate || s.kind !== e.kind || s.amountMinor !== e.amountMinor || s.note !== e.note.trim())) {
+    // The form's first send was saved though its answer never arrived; this one says something else.
+    throw new ConflictError(
+      `This form was saved already: ${formatMoney(s.amountMinor, brand.currency as CurrencyCode, { accounting: true })} on ${s.entryDate} (“${s.note}”). Nothing else was recorded; reload the page to enter another.`,
+    );
+  }
+  return { id: out.id, replayed: out.replayed };
 }
 
 export function forExport(m: StoredMemo): MemoForExport {

@@ -9,7 +9,7 @@ import type { AppUser } from '@/lib/db/users';
 import { renderPackingSlip, type SlipAddress } from '@/lib/documents/packing-slip';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/errors';
 import { formatDateTime, formatDay } from '@/lib/format/dates';
-import { classifyPart, linesFromDealerStock, linesToShip, storedClass, type StoredBatteryClass } from '@/lib/fulfilment';
+import { classifyPart, linesFromDealerStock, linesToShip, nothingShipsText, storedClass, type StoredBatteryClass } from '@/lib/fulfilment';
 import { corePart, partLinesOf } from '@/lib/services/fulfilment';
 import { getObjectBytes } from '@/lib/storage/s3';
 
@@ -23,6 +23,9 @@ export async function packingSlipFor(user: AppUser, claimId: string): Promise<{ 
   const claim = await findClaimForUser(user, claimId);
   if (!claim) throw new NotFoundError('No such claim.');
   if (!claim.rmaNumber) throw new ConflictError('There is no packing slip before the claim is approved and has an RMA number.', { stage: claim.stage });
+  if (claim.context.replacement.fromShopStock) {
+    throw new ConflictError(`There is no packing slip: ${nothingShipsText(partLinesOf(claim), 'brand').replace(/^Nothing to ship: /, '')}`, { stage: claim.stage });
+  }
   const outbound = await liveShipment(claim.id, 'outbound');
   if (user.orgKind === 'dealer' && !outbound) throw new ConflictError('The packing slip is ready once the replacement has shipped.', { stage: claim.stage });
 

@@ -129,7 +129,7 @@ export async function loadFulfilmentView(claim: ClaimRecord): Promise<Fulfilment
     coreIsBattery,
     corePartLabel: part ? `${part.partNumber} ${part.name}` : null,
     coreClock: clock,
-    replacementSteps: replacementTrack(replacementStep, ctx, summary(outbound), backordered),
+    replacementSteps: replacementTrack(replacementStep, ctx, summary(outbound), backordered, linesFromDealerStock(lines).length > 0),
     coreSteps: coreTrack(coreStep, ctx, summary(returnParcel), clock?.dueDate ?? outbound?.coreDueOn ?? null),
     outboundBatteries: outboundClasses.map(({ line, c }) => storedClass(line.partNumber, line.quantity, c)),
     outboundOffers: serviceOffers(outboundClasses.map(({ c }) => c)),

@@ -17,6 +17,7 @@ import { notifyBrandRole, notifyDealer } from '@/lib/services/claim-notify';
 import { evidenceSummaryFor } from '@/lib/services/claims';
 import type { ApproveRequest, RequestInfoRequest } from '@/lib/validation/review';
 import { allowedEvents, DENIAL_REASON_LABELS, restoreClaim, type ClaimEventType, type DenialReason } from '@/machines/claim';
+import { nothingShipsText } from '@/lib/fulfilment';
 
 type Version = number | undefined;
 
@@ -121,7 +122,7 @@ export async function approveClaim(user: AppUser, claimId: string, input: Approv
           partial ? `Changed from your request: ${changes.join('; ')}.` : 'Approved as requested.',
           input.message ? `“${input.message}”` : '',
           next.context.replacement.fromShopStock
-            ? `Nothing ships: you fitted the approved parts from your own stock. Upload the after-test on the claim to release the labor credit, and keep the failed part for its return under RMA ${next.context.rmaNumber}.`
+            ? `${nothingShipsText(outcome!.approved.parts, 'dealer')} Upload the after-test on the claim to release the labor credit, and keep the failed part for its return under RMA ${next.context.rmaNumber}.`
             : `The replacement ships under RMA ${next.context.rmaNumber}; keep the failed part for its return.`,
         ].filter(Boolean).join(' '),
       });

@@ -5,7 +5,7 @@ import { localDate } from '@/lib/calendar';
 import { brandHolidays, findPolicy, type PartCategory } from '@/lib/db/catalog';
 import { findClaimById, insertEvent } from '@/lib/db/claims';
 import { organisationAddress } from '@/lib/db/fulfilment';
-import { coresAwaitingReturn, recordTracking, setCoreDueOn, shipmentsToPoll, touchPolled } from '@/lib/db/shipments';
+import { coresAwaitingReturn, recordTracking, setClaimCoreDueOn, setCoreDueOn, shipmentsToPoll, touchPolled } from '@/lib/db/shipments';
 import { coreClock, coreClockAction, type CorePolicy } from '@/lib/fulfilment';
 import { applyStep, SYSTEM } from '@/lib/services/claim-steps';
 import { notifyBrandRole, notifyDealer } from '@/lib/services/claim-notify';
@@ -99,7 +99,9 @@ export async function runCoreClock(now: Date = new Date()): Promise<{ checked: n
     if (new Date(row.deliveredAt).getTime() > now.getTime()) continue;
     const { timeZone, calendar } = await brandCalendar(claim.brandId);
     const clock = coreClock({ deliveredAt: new Date(row.deliveredAt).toISOString(), now: now.toISOString(), timeZone, calendar, policy: await corePolicyFor(claim.brandId, claim.partCategory) });
-    if (row.shipmentId && row.coreDueOn !== clock.dueDate) await db().transaction((trx) => setCoreDueOn(trx, row.shipmentId!, clock.dueDate));
+    if (row.coreDueOn !== clock.dueDate) {
+      await db().transaction((trx) => (row.shipmentId ? setCoreDueOn(trx, row.shipmentId, clock.dueDate) : setClaimCoreDueOn(trx, row.claimId, clock.dueDate)));
+    }
     const action = coreClockAction(clock, claim.context.core, timeZone);
     try {
       if (action === 'remind') {

@@ -77,6 +77,9 @@ describe('warranty liability roll-forward (ASC 460-10-50-8(c))', () => {
     expect([a.replayed, b.replayed].sort()).toEqual([false, true]);
     const after = (await rollForwardReport(await accountant(), period)).table;
     expect(after.accrualsMinor - before.accrualsMinor).toBe(77_00);
+    // The same key with other figures (the first answer was lost, the form then changed): refused, nothing added.
+    await expect(addLiabilityEntry(await accountant(), { ...entry, amountMinor: 78_00 })).rejects.toMatchObject({ status: 409, message: expect.stringMatching(/saved already/) });
+    expect((await rollForwardReport(await accountant(), period)).table.accrualsMinor - before.accrualsMinor).toBe(77_00);
     // A new key is a new entry.
     const c = await addLiabilityEntry(await accountant(), { ...entry, clientKey: randomUUID() });
     expect(c.replayed).toBe(false);

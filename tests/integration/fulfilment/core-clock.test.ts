@@ -2,7 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POST as stepsPOST } from '@/app/api/claims/[id]/steps/route';
 import { db } from '@/db/connection';
 import { addBusinessDays, localDate } from '@/lib/calendar';
+import { findActiveUser } from '@/lib/db/users';
 import { runCoreClock } from '@/lib/services/tracking';
+import { returnsPage } from '@/lib/services/warehouse';
+import { returnsQuerySchema } from '@/lib/validation/fulfilment';
 import { actAs } from '../../support/acting-user';
 import { approvedClaim, setStock } from '../../support/approved-claims';
 import { ensureCarrier, stopCarrier } from '../../support/carrier';
@@ -99,5 +102,11 @@ describe('the core-return clock (business days from delivery; Torvane controller
     const c = await core(claim.id);
     expect(c.core_step).toBe('requested');
     expect(c.context.core.remindersSent).toBe(1);
+    // The warehouse's returns queue shows the due day and lists it as overdue.
+    const due = addBusinessDays(approvedOn, 15, { holidays: h });
+    expect((await db()('claims').where({ id: claim.id }).first('core_due_on')).core_due_on).toBe(due);
+    const warehouse = (await findActiveUser((await actAs('felix.moreau@torvane.test'))!))!;
+    const page = await returnsPage(warehouse, returnsQuerySchema.parse({ filter: 'overdue', q: claim.rmaNumber! }));
+    expect(page.rows.map((r) => [r.id, r.coreDueOn, r.nothingShips])).toEqual([[claim.id, due, true]]);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { adjustmentProblem, approvedPartLines, lineAvailability, linesFromDealerStock, linesToShip, pickProblem, shortageProblem, type PartLine } from '@/lib/fulfilment';
+import { adjustmentProblem, approvedPartLines, lineAvailability, linesFromDealerStock, linesToShip, nothingShipsText, pickProblem, shortageProblem, type PartLine } from '@/lib/fulfilment';
 
 const line = (lineId: string, partId: string, quantity = 1, fromDealerStock = false): PartLine => ({ lineId, partId, partNumber: partId.toUpperCase(), name: `Part ${partId}`, quantity, fromDealerStock });
 
@@ -54,5 +54,14 @@ describe('adjustment reasons', () => {
     expect(adjustmentProblem('count_correction', 0, '')).toMatch(/zero changes nothing/);
     expect(adjustmentProblem('other', 2, ' ')).toMatch(/Say in the note why/);
     expect(adjustmentProblem('other', 2, 'Found behind the racking')).toBeNull();
+  });
+});
+
+describe('nothingShipsText', () => {
+  it('names the shop’s own stock when an approved part came from it, else says no part was approved', () => {
+    expect(nothingShipsText([{ quantity: 1, fromDealerStock: true }], 'dealer')).toBe('Nothing ships: you fitted the approved parts from your own stock.');
+    expect(nothingShipsText([{ quantity: 0, fromDealerStock: false }], 'dealer')).toBe('Nothing ships: no replacement part was approved.');
+    expect(nothingShipsText([], 'brand')).toBe('Nothing to ship: no replacement part was approved.');
+    expect(nothingShipsText([{ quantity: 2, fromDealerStock: true }], 'brand')).toBe('Nothing to ship: the dealer fitted every approved part from its own stock.');
   });
 });

@@ -18,7 +18,7 @@ import { requireRole } from '@/lib/auth/session';
 import { listAttachments } from '@/lib/db/attachments';
 import { findClaimForUser, listEvents } from '@/lib/db/claims';
 import { organisationAddress } from '@/lib/db/fulfilment';
-import type { ServiceOffer } from '@/lib/fulfilment';
+import { nothingShipsText, type ServiceOffer } from '@/lib/fulfilment';
 import { loadFulfilmentView, type FulfilmentView } from '@/lib/services/fulfilment-view';
 import { describeState } from '@/machines/claim';
 
@@ -82,7 +82,7 @@ export default async function WarehouseClaimPage({ params }: { params: Promise<{
             ) : null}
             {view.replacementStep === 'from_shop_stock' ? (
               <Notice tone="info" title="Nothing to ship">
-                {claim.dealerName} fitted every approved part from its own stock; only the core comes back.
+                {nothingShipsText(claim.approvedLines?.parts ?? [], 'brand')} Only the core comes back.
               </Notice>
             ) : null}
 

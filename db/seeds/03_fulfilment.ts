@@ -60,6 +60,13 @@ const DEMO_CLAIMS: DemoApproved[] = [
     lines: [{ part: 'TV-DU85' }], labor: ['DU-RR'], approvedAt: hoursAgo(70),
   },
   {
+    // Fitted from the shop's own shelf the same day: nothing ships; the after-test is the shop's next step.
+    brand: 'torvane', dealer: 'lanternhill', filedBy: 'sam.okafor@lanternhill.test', approvedBy: 'priya.nair@torvane.test',
+    frameSerial: 'KU25-008410', failedPart: 'TV-CT20', partSerial: 'CT20-2510-35102', customerName: 'Nell Okonkwo',
+    symptom: 'Motor cuts out over bumps, comes back after a restart', description: 'Controller drops out when the harness is tapped; connectors clean and tight. Fitted a CT20 from our shelf so the rider could keep commuting.',
+    lines: [{ part: 'TV-CT20', fromDealerStock: true }], labor: ['CT-RR', 'LT-BA'], approvedAt: hoursAgo(28), beforeFraction: 0.5,
+  },
+  {
     brand: 'wrenfield', dealer: 'lanternhill', filedBy: 'rita.vance@lanternhill.test', approvedBy: 'ines.costa@wrenfield.test',
     frameSerial: 'WLT25M-09288', failedPart: 'WF-HM750', partSerial: 'HM750-25-1472', customerName: 'Priscilla Ngata',
     symptom: 'Hub motor clicks and loses power', description: 'Axle play and intermittent hall sensor fault; dyno wheel power 310 W against 550 W minimum.',

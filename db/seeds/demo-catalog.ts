@@ -122,6 +122,7 @@ export const demoUnits: Record<string, DemoUnit[]> = {
     { frameSerial: 'KT26-000220', model: 'KST-T', sold: '2026-03-28', dealer: 'tidewheel', components: { drive_unit: 'DU85-2602-16032', battery: 'BP625-2602-10650' } },
     { frameSerial: 'KT25-005016', model: 'KST-T', sold: '2025-07-11', dealer: 'kettenblatt', components: { drive_unit: 'DU85-2506-13350', battery: 'BP625-2506-08417' } },
     { frameSerial: 'KU25-008133', model: 'KST-U', sold: '2025-09-19', dealer: 'lanternhill', components: { drive_unit: 'DU60-2509-02690', battery: 'BP500-2509-06911' } },
+    { frameSerial: 'KU25-008410', model: 'KST-U', sold: '2025-10-11', dealer: 'lanternhill', components: { drive_unit: 'DU60-2510-02811', battery: 'BP500-2510-07020', controller: 'CT20-2510-35102' } },
     { frameSerial: 'SW26-010702', model: 'SWF-S', sold: '2026-01-24', dealer: 'tidewheel', components: { drive_unit: 'DU85-2601-15622', battery: 'BP625-2601-10230' } },
     { frameSerial: 'HC24-000347', model: 'HRR-C', sold: '2024-12-14', dealer: 'kettenblatt', components: { drive_unit: 'DU85-2411-10018', battery: 'BP500-2411-05602' } },
   ],

@@ -301,7 +301,7 @@ function EvidenceCheck({ view, r, units, newIds }: { view: ClaimView; r: RepData
             <p className="text-xs text-ink-muted">
               {part.category === 'battery'
                 ? 'Compare the capacity discharge with the rating and the policy’s capacity threshold.'
-                : 'Compare the before-test with this spec; a run above the legal speed class under motor power is a sign of tampering to look at, not a reason on its own.'}
+                : `${part.minWheelPowerW ? 'Compare the before-test with this spec' : 'The part has no wheel spec in the catalog: judge the runs yourself'}; a run above the legal speed class under motor power is a sign of tampering to look at, not a reason on its own.`}
             </p>
           </>
         ) : (

@@ -359,10 +359,19 @@ async function main() {
   if (testing) {
     const env = childEnv();
     const vitest = (project) => spawnSync(bin('vitest'), ['run', '--project', project], { cwd: root, env, stdio: 'inherit' });
+    // `npm test -- e2e` (or unit, integration) runs only those projects; plain `npm test` runs all.
+    const chosen = process.argv.slice(3);
+    const runs = (project) => !chosen.length || chosen.includes(project);
     let failed = [];
-    for (const project of ['unit', 'integration']) {
+    for (const project of ['unit', 'integration'].filter(runs)) {
       log(`running ${project} tests…`);
       if (vitest(project).status !== 0) failed.push(project);
+    }
+    if (!runs('e2e')) {
+      if (failed.length) console.error(`\n\x1b[31m[loadproof]\x1b[0m failed: ${failed.join(', ')}`);
+      else log('all chosen tests passed');
+      shutdown(failed.length ? 1 : 0);
+      return;
     }
     build('.next-test');
     await startChild('worker', bin('tsx'), ['--conditions=react-server', 'scripts/worker.ts'], { ready: 'worker ready' });

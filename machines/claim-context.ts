@@ -39,7 +39,7 @@ export interface AfterTestRecord {
 }
 
 export interface ReplacementRecord {
-  /** Every approved part came from the dealer's own shelf: the brand ships nothing (absent on older claims: false). */
+  /** Nothing for the brand to ship: every approved part came from the dealer's shelf, or none was approved (absent on older claims: false). */
   fromShopStock?: boolean;
   carrier: string | null;
   trackingNumber: string | null;

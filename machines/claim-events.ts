@@ -70,7 +70,7 @@ export interface ApproveEvent extends StepBase {
   coreReturnLabelRef?: string;
   /** The core is a lithium battery that ships as dangerous goods (decided by the transport rules). */
   coreDangerousGoods?: boolean;
-  /** No approved part is to be shipped: the dealer fitted every one from its own stock. */
+  /** No approved part is to be shipped: the dealer fitted every one from its own stock, or none was approved. */
   nothingToShip?: boolean;
 }
 export interface DenyEvent extends StepBase {

@@ -5,7 +5,6 @@ import type { RunVerdict } from '@/lib/loadtest-evidence';
 import { formatLength, formatMass, formatPower, formatPressure, formatSpeed, formatTemperature, formatTorque, type UnitSystem } from '@/lib/units';
 import { signedPct } from '@/lib/format/percent';
 
-const pct = signedPct;
 
 export function VerdictBadge({ verdict }: { verdict: RunVerdict }) {
   if (verdict.kind === 'no-spec') return <Badge tone="neutral">No spec to check against</Badge>;
@@ -51,7 +50,7 @@ function FiguresTable({ rows, columns }: { rows: Row[]; columns: ('before' | 'af
 }
 
 const change = (b: number | null | undefined, a: number | null | undefined) =>
-  b === null || b === undefined || a === null || a === undefined || b === 0 ? '' : pct(((a - b) / b) * 100);
+  b === null || b === undefined || a === null || a === undefined || b === 0 ? '' : signedPct(((a - b) / b) * 100);
 
 /** Peaks, top speed and power band of one or two dyno runs, in the reader's units. */
 export function DynoFigures({ before, after, units }: { before: DynoAnalysis | null; after: DynoAnalysis | null; units: UnitSystem }) {

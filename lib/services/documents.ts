@@ -24,7 +24,7 @@ export async function packingSlipFor(user: AppUser, claimId: string): Promise<{ 
   if (!claim) throw new NotFoundError('No such claim.');
   if (!claim.rmaNumber) throw new ConflictError('There is no packing slip before the claim is approved and has an RMA number.', { stage: claim.stage });
   if (claim.context.replacement.fromShopStock) {
-    throw new ConflictError(`There is no packing slip: ${nothingShipsText(partLinesOf(claim), 'brand').replace(/^Nothing to ship: /, '')}`, { stage: claim.stage });
+    throw new ConflictError(`There is no packing slip. ${nothingShipsText(partLinesOf(claim), 'brand')}`, { stage: claim.stage });
   }
   const outbound = await liveShipment(claim.id, 'outbound');
   if (user.orgKind === 'dealer' && !outbound) throw new ConflictError('The packing slip is ready once the replacement has shipped.', { stage: claim.stage });

@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Knex } from 'knex';
-import { brandCalendar, clockEventsFor, reviewDaysFor, reviewStartedAt, transactionNow } from '@/lib/db/review';
+import { brandCalendar, CLOCK_STAGES as CLOCK_STAGE_LIST, clockEventsFor, reviewDaysFor, reviewStartedAt, transactionNow } from '@/lib/db/review';
 import type { ClaimRecord } from '@/lib/db/claims';
 import { reviewDeadline, reviewRuleText, storedDueOn, type ClockEvent } from '@/lib/review';
 import type { ClockResult } from '@/lib/calendar';
@@ -33,7 +33,7 @@ export async function reviewColumnsOnSubmit(trx: Knex, claim: ClaimRecord): Prom
 }
 
 
-const CLOCK_STAGES = new Set(['submitted', 'in_review', 'waiting_on_dealer', 'appealed']);
+const CLOCK_STAGES = new Set<string>(CLOCK_STAGE_LIST);
 
 export type ReviewClockView = { clock: ClockResult; rule: string; reviewDays: number | null };
 

@@ -23,9 +23,12 @@ if (!['start', 'dev', 'test'].includes(mode)) {
 const testing = mode === 'test';
 
 // Each mode has its own ports and data folder so tests can run beside a running demo.
-const ports = testing
+// LOADPROOF_PORT_OFFSET shifts them all, so several checkouts can run their stacks side by side.
+const portOffset = Number.parseInt(process.env.LOADPROOF_PORT_OFFSET ?? '0', 10) || 0;
+const basePorts = testing
   ? { pg: 54339, app: 3100, s3: 4579, smtp: 2535, mailbox: 2590, carrier: 4610 }
   : { pg: 54329, app: 3000, s3: 4569, smtp: 2525, mailbox: 2580, carrier: 4600 };
+const ports = Object.fromEntries(Object.entries(basePorts).map(([k, v]) => [k, v + portOffset]));
 const dataDir = path.join(root, '.data', testing ? 'test' : 'local');
 const dbName = testing ? 'loadproof_test' : 'loadproof';
 const appUrl = `http://127.0.0.1:${ports.app}`;
